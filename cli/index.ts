@@ -1,0 +1,42 @@
+// The `filmsweep` command: commander with one module per command in cli/commands/.
+import { Command, CommanderError } from 'commander';
+import { InputError } from '../shared/physics/types.js';
+import { FluidRangeError } from '../shared/physics/fluids/types.js';
+import { UnitError } from '../shared/study/units.js';
+import { StudyError } from '../shared/study/errors.js';
+import { EXIT, ExitError } from './errors.js';
+import { register as registerMethods } from './commands/methods.js';
+import { register as registerFluid } from './commands/fluid.js';
+import { register as registerSolve } from './commands/solve.js';
+
+const program = new Command();
+program
+  .name('filmsweep')
+  .description('Parametric convection heat-transfer sweeps: similarity solutions and correlations side by side')
+  .version('0.1.0')
+  .showHelpAfterError('(run with --help for usage)')
+  .exitOverride();
+
+for (const register of [registerMethods, registerFluid, registerSolve]) register(program);
+
+function fail(code: number, message: string): never {
+  process.stderr.write(`filmsweep: ${message}\n`);
+  process.exit(code);
+}
+
+try {
+  await program.parseAsync(process.argv);
+} catch (e) {
+  if (e instanceof CommanderError) {
+    // --help and --version end here with exit code 0; usage errors were already printed.
+    process.exit(e.exitCode === 0 ? EXIT.ok : EXIT.badInput);
+  }
+  if (e instanceof ExitError) fail(e.code, e.message);
+  if (e instanceof InputError || e instanceof FluidRangeError || e instanceof UnitError) fail(EXIT.badInput, e.message);
+  if (e instanceof StudyError) fail(EXIT.badInput, `invalid study file (nothing was run or written)\n${e.format()}`);
+  // Anything else is a bug in Filmsweep: say so plainly, keep the detail for a report.
+  const err = e as Error;
+  process.stderr.write(`filmsweep: internal error: ${err?.message ?? String(e)}\n`);
+  if (process.env.FILMSWEEP_DEBUG) process.stderr.write(`${err?.stack}\n`);
+  process.exit(EXIT.runFailed);
+}

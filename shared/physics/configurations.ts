@@ -1,0 +1,133 @@
+// The physical situations Filmsweep knows. A configuration fixes the characteristic
+// length, the temperature at which fluid properties are read, and the heated area, so
+// that the dimensional engine (engine.ts) can turn velocities, sizes and temperatures
+// into Re, Pr, Gr, Ra and back into h, q and the heat rate.
+
+export type Regime = 'external' | 'internal' | 'free';
+
+/** Where properties are evaluated: film (T_s+T_∞)/2, free stream T_∞, or bulk T_b. */
+export type PropertyRule = 'film' | 'free-stream' | 'bulk';
+
+export interface Configuration {
+  id: string;
+  title: string;
+  description: string;
+  regime: Regime;
+  /** Words for the characteristic length used in Re, Nu and Gr. */
+  lengthNote: string;
+  /** Default property temperature rule for methods of this configuration. */
+  propertyRule: PropertyRule;
+  /** Dimensional inputs this configuration understands (besides the common ones). */
+  dimensionalInputs: string[];
+}
+
+export const configurations: Configuration[] = [
+  {
+    id: 'flat-plate',
+    title: 'Flat plate in parallel flow',
+    description: 'Forced flow along an isothermal or uniform-flux flat plate, zero pressure gradient.',
+    regime: 'external',
+    lengthNote: 'plate length L in the flow direction (local methods: x = L)',
+    propertyRule: 'film',
+    dimensionalInputs: ['velocity', 'length', 'width'],
+  },
+  {
+    id: 'wedge',
+    title: 'Wedge flow (Falkner–Skan)',
+    description: 'Laminar boundary layer under an outer flow U = C x^m; Blasius is m = 0, stagnation m = 1.',
+    regime: 'external',
+    lengthNote: 'distance x from the leading edge; velocity is the local outer velocity U(x)',
+    propertyRule: 'film',
+    dimensionalInputs: ['velocity', 'length', 'width'],
+  },
+  {
+    id: 'cylinder',
+    title: 'Circular cylinder in cross flow',
+    description: 'A single long cylinder normal to a uniform stream.',
+    regime: 'external',
+    lengthNote: 'diameter D',
+    propertyRule: 'film',
+    dimensionalInputs: ['velocity', 'diameter', 'length'],
+  },
+  {
+    id: 'sphere',
+    title: 'Sphere in a uniform stream',
+    description: 'Forced convection from a single sphere.',
+    regime: 'external',
+    lengthNote: 'diameter D',
+    propertyRule: 'free-stream',
+    dimensionalInputs: ['velocity', 'diameter'],
+  },
+  {
+    id: 'tube-bank',
+    title: 'Bank of tubes in cross flow',
+    description: 'Aligned or staggered tube bundle; Re on the maximum velocity between tubes.',
+    regime: 'external',
+    lengthNote: 'tube diameter D; Re uses the maximum velocity V_max',
+    propertyRule: 'free-stream',
+    dimensionalInputs: ['velocity', 'diameter', 'length'],
+  },
+  {
+    id: 'pipe',
+    title: 'Circular pipe, internal flow',
+    description: 'Fully developed and entry-region flow in a smooth circular tube.',
+    regime: 'internal',
+    lengthNote: 'inner diameter D',
+    propertyRule: 'bulk',
+    dimensionalInputs: ['velocity', 'flow_rate', 'diameter', 'length'],
+  },
+  {
+    id: 'duct',
+    title: 'Rectangular duct, internal flow',
+    description: 'Smooth rectangular duct; Re and Nu on the hydraulic diameter.',
+    regime: 'internal',
+    lengthNote: 'hydraulic diameter D_h = 2ab/(a+b)',
+    propertyRule: 'bulk',
+    dimensionalInputs: ['velocity', 'flow_rate', 'width', 'height', 'length'],
+  },
+  {
+    id: 'vertical-plate',
+    title: 'Vertical plate, free convection',
+    description: 'Isothermal vertical plate in a quiescent fluid.',
+    regime: 'free',
+    lengthNote: 'plate height L (local methods: x = L)',
+    propertyRule: 'film',
+    dimensionalInputs: ['height', 'width'],
+  },
+  {
+    id: 'horizontal-plate',
+    title: 'Horizontal plate, free convection',
+    description: 'Upper or lower face of a heated or cooled horizontal plate.',
+    regime: 'free',
+    lengthNote: 'L = A/P, surface area over perimeter',
+    propertyRule: 'film',
+    dimensionalInputs: ['length', 'width'],
+  },
+  {
+    id: 'horizontal-cylinder',
+    title: 'Horizontal cylinder, free convection',
+    description: 'Long isothermal horizontal cylinder in a quiescent fluid.',
+    regime: 'free',
+    lengthNote: 'diameter D',
+    propertyRule: 'film',
+    dimensionalInputs: ['diameter', 'length'],
+  },
+  {
+    id: 'sphere-free',
+    title: 'Sphere, free convection',
+    description: 'Isothermal sphere in a quiescent fluid.',
+    regime: 'free',
+    lengthNote: 'diameter D',
+    propertyRule: 'film',
+    dimensionalInputs: ['diameter'],
+  },
+];
+
+/** Inputs every dimensional study may use, whatever the configuration. */
+export const commonDimensionalInputs = ['surface_temperature', 'fluid_temperature', 'heat_flux', 'pressure'];
+
+export const configurationIds = configurations.map((c) => c.id);
+
+export function findConfiguration(id: string): Configuration | undefined {
+  return configurations.find((c) => c.id === id);
+}
