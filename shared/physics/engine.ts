@@ -268,7 +268,7 @@ function geometryOf(c: Configuration, inputs: Inputs): Geometry {
 function tubeBankRatio(inputs: Inputs): number {
   const arrangement = (inputs.arrangement as 'aligned' | 'staggered' | undefined) ?? 'aligned';
   const ST = requireNum(inputs, 'ST_over_D');
-  const SL = num(inputs, 'SL_over_D') ?? ST;
+  const SL = requireNum(inputs, 'SL_over_D');
   return maxVelocityRatio(arrangement, ST, SL);
 }
 
