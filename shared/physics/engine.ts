@@ -79,8 +79,10 @@ export function compileSolver(plan: SolvePlan, options: SolveOptions = {}): (inp
       try {
         return solveMethod(m, configuration, fluid, inputs);
       } catch (e) {
-        if (strict || !(e instanceof FluidRangeError)) throw e;
-        return { method: m.id, inputs, outputs: {}, flags: ['out-of-range:property_temperature'] };
+        if (strict) throw e;
+        if (e instanceof FluidRangeError) return { method: m.id, inputs, outputs: {}, flags: ['out-of-range:property_temperature'] };
+        if (e instanceof MethodDomainError) return { method: m.id, inputs, outputs: {}, flags: ['domain-error'] };
+        throw e;
       }
     });
 }
@@ -94,7 +96,7 @@ function solveMethod(method: Method, configuration: Configuration, fluid: Fluid 
   const dimensional = Object.keys(inputs).some((k) => dimensionalNames.has(k));
   if (!dimensional) {
     if (fluid) throw new InputError('a fluid was given but no fluid_temperature: properties need a temperature');
-    const r = method.evaluate(inputs);
+    const r = evaluate(method, inputs);
     return withProfiles({ method: method.id, inputs, outputs: r.outputs, flags: r.flags }, r.profiles);
   }
   if (!fluid) {
@@ -179,10 +181,25 @@ function solveDimensional(method: Method, configuration: Configuration, fluid: F
   if (methodInputs.Re !== undefined && velocity === undefined && configuration.regime !== 'free') {
     derived.velocity = ((methodInputs.Re as number) * props.nu) / geometry.length;
   }
-  const r = method.evaluate(methodInputs);
+  const r = evaluate(method, methodInputs);
   const outputs: Outputs = { ...derived, ...r.outputs };
   addDimensionalOutputs(outputs, geometry, props, Ts, Tinf);
   return withProfiles({ method: method.id, inputs, outputs, flags: r.flags }, r.profiles);
+}
+
+/**
+ * A method refusing a point (e.g. Gnielinski at Re ≤ 1000, where its (Re − 1000) factor
+ * makes Nu ≤ 0): `solve` reports the message; a sweep keeps going with `domain-error`.
+ */
+export class MethodDomainError extends InputError {}
+
+function evaluate(method: Method, inputs: Inputs) {
+  try {
+    return method.evaluate(inputs);
+  } catch (e) {
+    if (e instanceof InputError) throw new MethodDomainError(`${method.configuration}/${method.id}: ${e.message}`);
+    throw e;
+  }
 }
 
 function withProfiles(row: ResultRow, profiles: Record<string, number[]> | undefined): ResultRow {
