@@ -1,0 +1,57 @@
+// Which SI unit each input and output name carries, for export headers. The method's own
+// InputSpec/OutputSpec wins; then the dimensional quantities a study may give; then the
+// quantities the dimensional engine derives itself (engine.ts), which no method declares.
+import { dimensionalQuantities } from '../physics/quantities.js';
+import type { MethodInfo } from '../physics/types.js';
+
+/** Units of what engine.ts adds to a method's outputs, and of the usual dimensionless groups. */
+export const derivedUnits: Readonly<Record<string, string>> = {
+  h: 'W/(m^2·K)',
+  h_x: 'W/(m^2·K)',
+  q: 'W/m^2',
+  heat_rate: 'W',
+  pressure_drop: 'Pa',
+  property_temperature: 'K',
+  surface_temperature: 'K',
+  adiabatic_wall_temperature: 'K',
+  velocity: 'm/s',
+  delta99: 'm',
+  Re: '1',
+  Pr: '1',
+  Pr_s: '1',
+  Gr: '1',
+  Ra: '1',
+  Nu: '1',
+  Nu_x: '1',
+  f: '1',
+  Cf: '1',
+  Cf_x: '1',
+  viscosity_ratio: '1',
+  L_over_D: '1',
+  aspect_ratio: '1',
+  recovery_factor: '1',
+  delta99_x: '1',
+  pressure_drop_coefficient: '1',
+};
+
+/** SI unit of a name (`1` for dimensionless), or undefined when nothing declares it. */
+export type UnitLookup = (name: string) => string | undefined;
+
+/** A lookup over the given methods' specs, the dimensional quantities and `derivedUnits`. */
+export function makeUnitLookup(methods: readonly Pick<MethodInfo, 'inputs' | 'outputs'>[]): UnitLookup {
+  const table = new Map<string, string>(Object.entries(derivedUnits));
+  for (const q of dimensionalQuantities) table.set(q.name, q.unit);
+  // First declaring method wins; the catalogue keeps names and units fixed across methods.
+  const declared = new Map<string, string>();
+  for (const m of methods) {
+    for (const spec of [...m.inputs, ...m.outputs]) {
+      if (!declared.has(spec.name)) declared.set(spec.name, spec.unit);
+    }
+  }
+  return (name) => declared.get(name) ?? table.get(name);
+}
+
+/** The unit as headers show it: `-` for dimensionless. */
+export function displayUnit(unit: string): string {
+  return unit === '1' || unit === '' ? '-' : unit;
+}
