@@ -1,0 +1,178 @@
+// The study file format (DESIGN.md section 5), written once: this zod schema checks the
+// structure of a file and is also printed as JSON Schema by `filmsweep schema` for
+// editors. It describes the file as written (numbers or strings with units); turning
+// values into SI and checking them against the catalogue happens in parse.ts.
+import { z } from 'zod';
+
+/** Lowercase words joined by hyphens, used in file names, URLs and the database. */
+export const slugPattern = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;
+/** A percentage such as `3%` or `0.5 %`. */
+export const percentPattern = /^\s*(\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?\s*%\s*$/;
+
+// A strict object whose unknown-key message lists the keys it does accept.
+function strict<T extends z.ZodRawShape>(shape: T) {
+  const known = Object.keys(shape).join(', ');
+  return z.strictObject(shape, {
+    error: (issue) => (issue.code === 'unrecognized_keys' ? `expected one of: ${known}` : 'expected a mapping'),
+  });
+}
+
+const finiteNumber = z.number({ error: 'expected a finite number' });
+
+/** An SI number, or a string with units converted to the SI unit of the quantity. */
+const quantity = z
+  .union([finiteNumber, z.string()], { error: 'expected a number (SI) or a string with units such as "25 mm"' })
+  .describe('SI number, or a number with units such as "25 mm", "80 degC", "2 m/s", "1.5 L/min"');
+
+export const inputValueSchema = z
+  .union([finiteNumber, z.string(), z.boolean()], {
+    error: 'expected a number (SI), a string with units, a boolean or a word',
+  })
+  .describe('SI number, string with units ("25 mm"), boolean switch (heating: true) or word (arrangement: staggered)');
+
+const nonNegative = z.number({ error: 'expected a number' }).min(0, { error: 'expected a number ≥ 0' });
+
+const percent = z.string().regex(percentPattern, { error: 'expected a percentage such as "3%"' });
+
+/**
+ * Tolerance of a check: `3%` or a plain number (a relative fraction, 0.03), or
+ * `{relative: r}`, or `{absolute: a}` in the SI unit of the output. With both keys a
+ * value passes when it is within either bound.
+ */
+export const toleranceSchema = z
+  .union(
+    [
+      percent,
+      nonNegative,
+      strict({ relative: nonNegative, absolute: nonNegative.optional() }),
+      strict({ absolute: nonNegative, relative: nonNegative.optional() }),
+    ],
+    { error: 'expected a tolerance: "3%", a relative fraction (0.03), {relative: r} or {absolute: a}' },
+  )
+  .describe('"3%", a relative fraction such as 0.03, {relative: r} or {absolute: a} (SI unit of the output)');
+
+const constantFluid = strict({
+  rho: quantity.describe('density, kg/m^3'),
+  cp: quantity.describe('specific heat, J/(kg K)'),
+  mu: quantity.describe('dynamic viscosity, Pa s'),
+  k: quantity.describe('thermal conductivity, W/(m K)'),
+  beta: quantity.optional().describe('volumetric expansion coefficient, 1/K (free convection)'),
+});
+
+const column = z.array(finiteNumber, { error: 'expected a list of numbers' }).min(2, { error: 'expected at least 2 rows' });
+const tableFluid = strict({
+  T: column.describe('temperatures, K, increasing'),
+  rho: column.describe('density, kg/m^3'),
+  cp: column.describe('specific heat, J/(kg K)'),
+  mu: column.describe('dynamic viscosity, Pa s'),
+  k: column.describe('thermal conductivity, W/(m K)'),
+  beta: column.optional().describe('volumetric expansion coefficient, 1/K'),
+});
+
+export const fluidSchema = z
+  .union([z.string(), strict({ constant: constantFluid }), strict({ table: tableFluid })], {
+    error: 'expected a catalogue fluid name, {constant: {rho, cp, mu, k}} or {table: {T, rho, cp, mu, k}}',
+  })
+  .describe('a catalogue fluid (water, air, …), {constant: {rho, cp, mu, k, beta?}} or {table: {T: [...], rho: [...], cp, mu, k, beta?}}');
+
+const count = z
+  .number({ error: 'expected a whole number ≥ 2' })
+  .int({ error: 'expected a whole number ≥ 2' })
+  .min(2, { error: 'expected a whole number ≥ 2' });
+
+export const sweepEntrySchema = z
+  .union(
+    [
+      z.array(inputValueSchema, { error: 'expected a list of values' }).min(1, { error: 'expected at least one value' }),
+      strict({
+        from: quantity,
+        to: quantity,
+        count: count.describe('number of values, both ends included'),
+        spacing: z
+          .enum(['linear', 'log'], { error: 'expected linear or log' })
+          .default('linear')
+          .describe('linear, or log (even in log10; needs from and to > 0)'),
+      }),
+      strict({
+        from: quantity,
+        to: quantity,
+        step: quantity.describe('increment; `to` is included when the steps land on it'),
+      }),
+    ],
+    { error: 'expected a list, {from, to, count, spacing?} or {from, to, step}' },
+  )
+  .describe('a list of values, {from, to, count, spacing: linear|log} or {from, to, step}');
+
+export const sweepSchema = strict({
+  design: z
+    .enum(['grid', 'zip', 'latin-hypercube'], { error: 'expected grid, zip or latin-hypercube' })
+    .default('grid')
+    .describe('grid: every combination, last key varying fastest; zip: entries side by side; latin-hypercube: seeded sampling'),
+  seed: z
+    .number({ error: 'expected a whole number' })
+    .int({ error: 'expected a whole number' })
+    .default(1)
+    .describe('seed of the sampling designs'),
+  samples: z
+    .number({ error: 'expected a whole number ≥ 1' })
+    .int({ error: 'expected a whole number ≥ 1' })
+    .min(1, { error: 'expected a whole number ≥ 1' })
+    .optional()
+    .describe('number of points of a latin-hypercube sweep'),
+  over: z
+    .record(z.string(), sweepEntrySchema, { error: 'expected a mapping of input names to sweep entries' })
+    .default({})
+    .describe('swept inputs, in order'),
+});
+
+export const checkSchema = strict({
+  at: z
+    .record(z.string(), inputValueSchema, { error: 'expected a mapping of input or output names to values' })
+    .describe('values that pick one point: swept or fixed inputs, or outputs such as Re (units allowed)'),
+  method: z.string({ error: 'expected a method id' }).describe('method id'),
+  expect: z
+    .record(z.string(), finiteNumber, { error: 'expected a mapping of output names to SI numbers' })
+    .describe('expected outputs, SI numbers'),
+  tolerance: toleranceSchema,
+});
+
+export const studySchema = strict({
+  name: z
+    .string({ error: 'expected a slug such as glycol-heater-tube' })
+    .regex(slugPattern, { error: 'expected a slug: lowercase letters and digits joined by hyphens' })
+    .describe('slug: lowercase letters and digits joined by hyphens'),
+  title: z.string({ error: 'expected a string' }).optional(),
+  configuration: z.string({ error: 'expected a configuration id such as pipe' }).describe('configuration id from the catalogue'),
+  methods: z
+    .array(z.string({ error: 'expected a method id' }), { error: 'expected a list of method ids' })
+    .min(1, { error: 'expected at least one method (or leave methods out for all)' })
+    .optional()
+    .describe('method ids; default every method of the configuration'),
+  fluid: fluidSchema.optional(),
+  inputs: z
+    .record(z.string(), inputValueSchema, { error: 'expected a mapping of input names to values' })
+    .default({})
+    .describe('fixed inputs'),
+  sweep: sweepSchema.optional(),
+  checks: z.array(checkSchema, { error: 'expected a list of checks' }).default([]),
+  baseline: strict({
+    tolerance: z
+      .union([percent, nonNegative], { error: 'expected a relative tolerance: a number such as 1e-9 or "0.1%"' })
+      .default(1e-9)
+      .describe('relative tolerance when comparing with the committed baseline'),
+  })
+    .optional()
+    .describe('comparison with the committed baseline'),
+});
+
+/** A study file as written, after structural checks and defaults. */
+export type StudyFile = z.output<typeof studySchema>;
+
+/** The JSON Schema of study files (draft 2020-12), for editors and `filmsweep schema`. */
+export function studyJsonSchema(): object {
+  return {
+    ...z.toJSONSchema(studySchema, { io: 'input' }),
+    title: 'Filmsweep study file',
+    description: 'A parametric convection heat-transfer study: configuration, methods, fluid, fixed and swept inputs, checks.',
+  };
+}
