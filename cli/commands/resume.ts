@@ -1,0 +1,29 @@
+// `filmsweep resume RUN`: finish an interrupted (or killed) run from its stored study
+// version, computing only the points that have no results yet.
+import type { Command } from 'commander';
+import { closeStore, openStore, resolveDbPath, resolveRunRef } from '../../shared/db/index.js';
+import { defaultWorkers, resumeRun } from '../../shared/runner/index.js';
+import { parseWholeNumber, sweepWithReporting, type SweepCommandOptions } from './run.js';
+
+export function register(program: Command) {
+  program
+    .command('resume')
+    .description('finish an interrupted run without repeating or losing points (refuses a done run or one still running)')
+    .argument('<run>', "run id, or 'latest'")
+    .option('-w, --workers <n>', `worker threads (default: the number of CPUs, ${defaultWorkers()})`, parseWholeNumber)
+    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--batch-size <n>', 'points per batch and transaction (default: adaptive)', parseWholeNumber)
+    .option('--force', 'take over a run marked running even if its process may be alive (other host, reused pid)')
+    .option('--json', 'print only one JSON document on stdout, shaped as for `run --json`')
+    .action(async (ref: string, opts: SweepCommandOptions & { db?: string; force?: boolean }) => {
+      const store = await openStore(resolveDbPath(opts.db), { create: false });
+      try {
+        const run = await resolveRunRef(store, ref);
+        await sweepWithReporting(store, opts, async function* (options) {
+          yield await resumeRun(store, run.id, { ...options, force: opts.force });
+        });
+      } finally {
+        await closeStore(store);
+      }
+    });
+}

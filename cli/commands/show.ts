@@ -1,0 +1,88 @@
+// `filmsweep show RUN`: one run's facts and its per-method summary. Also the summary
+// table `run` and `resume` print when a run ends.
+import type { Command } from 'commander';
+import {
+  closeStore,
+  getRunDetails,
+  getRunSummary,
+  openStore,
+  resolveDbPath,
+  resolveRunRef,
+  type MethodSummary,
+  type RunInfo,
+} from '../../shared/db/index.js';
+import { formatNumber, printJson, table } from '../format.js';
+
+function useColor(stream: NodeJS.WriteStream): boolean {
+  return Boolean(stream.isTTY) && !process.env.NO_COLOR;
+}
+
+const STATUS_COLOR: Record<string, number> = { done: 32, running: 36, queued: 36, interrupted: 33, failed: 31 };
+
+export function statusText(status: string, stream: NodeJS.WriteStream = process.stdout): string {
+  return useColor(stream) ? `\x1b[${STATUS_COLOR[status] ?? 0}m${status}\x1b[0m` : status;
+}
+
+/** The per-method table: points, flagged points, min/max Nu. */
+export function summaryTable(summary: MethodSummary[]): string {
+  return table(
+    ['method', 'version', 'points', 'flagged', 'Nu min', 'Nu max'],
+    summary.map((m) => [
+      m.method,
+      m.version,
+      m.points,
+      m.flagged_points,
+      m.nu_min === null ? '' : `${formatNumber(m.nu_min, 5)}${m.nu_name === 'Nu_x' ? ' (Nu_x)' : ''}`,
+      m.nu_max === null ? '' : `${formatNumber(m.nu_max, 5)}${m.nu_name === 'Nu_x' ? ' (Nu_x)' : ''}`,
+    ]),
+  );
+}
+
+/** What `run` and `resume` print after a run: a status line and the summary table. */
+export function runReport(run: RunInfo, summary: MethodSummary[], seconds?: number): string {
+  const time = seconds === undefined ? '' : ` in ${formatNumber(seconds, 3)} s`;
+  return [
+    `run ${run.id}  ${run.study} (version ${run.study_version})  ${statusText(run.status)}  ` +
+      `${run.points_done}/${run.points_total} points, ${run.results_count} results, ${run.flagged_count} flagged${time}`,
+    summaryTable(summary),
+    '',
+  ].join('\n');
+}
+
+export function register(program: Command) {
+  program
+    .command('show')
+    .description("one run: study, status, timing, git commit, host, and per method the points, flagged points and Nu range")
+    .argument('<run>', "run id, or 'latest'")
+    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--json', 'print JSON: {"run": {...}, "error": ..., "summary": [...]}')
+    .action(async (ref: string, opts: { db?: string; json?: boolean }) => {
+      const store = await openStore(resolveDbPath(opts.db), { create: false });
+      try {
+        const run = await resolveRunRef(store, ref);
+        const details = (await getRunDetails(store, run.id))!;
+        const summary = await getRunSummary(store, run.id);
+        if (opts.json) {
+          printJson({ run, error: details.error, summary });
+          return;
+        }
+        const lines = [
+          `run ${run.id}: ${run.study}${run.title ? ` — ${run.title}` : ''}`,
+          `  status         ${statusText(run.status)}${details.error ? ` (${details.error})` : ''}`,
+          `  study version  ${run.study_version} (sha256 ${run.yaml_hash.slice(0, 12)})`,
+          `  configuration  ${run.configuration}`,
+          `  methods        ${run.methods.map((m) => `${m.id} v${m.version}`).join(', ')}`,
+          `  points         ${run.points_done}/${run.points_total} (${run.results_count} results, ${run.flagged_count} flagged)`,
+          `  started        ${run.started_at ?? '—'}`,
+          `  finished       ${run.finished_at ?? '—'}`,
+          `  git commit     ${run.git_commit ?? '—'}`,
+          `  host           ${run.host}${details.pid ? ` (pid ${details.pid})` : ''}, ${run.workers} worker${run.workers === 1 ? '' : 's'}`,
+          '',
+          summaryTable(summary),
+        ];
+        process.stdout.write(`${lines.join('\n')}\n`);
+      } finally {
+        await closeStore(store);
+      }
+    });
+}

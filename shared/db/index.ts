@@ -1,0 +1,32 @@
+// The store: SQLite through Kysely (schema in migrations/), plus the queries the CLI and
+// the dashboard server share.
+export { openStore, closeStore, type Store, type OpenOptions } from './store.js';
+export { resolveDbPath, DEFAULT_DB_FILE } from './path.js';
+export { migrateToLatest, pendingMigrations } from './migrate.js';
+export type { Database, RunStatus, RunRow } from './schema.js';
+export { RUN_STATUSES } from './schema.js';
+export {
+  listRuns,
+  getRun,
+  getRunDetails,
+  resolveRunRef,
+  getRunRows,
+  getRunSummary,
+  type RunInfo,
+  type RunDetails,
+  type MethodSummary,
+  type ListRunsOptions,
+} from './queries.js';
+export {
+  createRun,
+  finishRun,
+  getRunSource,
+  claimRunForResume,
+  resumeRefusal,
+  type MethodVersion,
+  type NewRunSpec,
+  type RunSource,
+} from './runs.js';
+export { createBatchWriter, type BatchWriter, type EncodedBatch } from './batch-writer.js';
+export { immediateTransaction } from './transaction.js';
+export { isBusyError } from './busy.js';

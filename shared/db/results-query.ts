@@ -1,0 +1,423 @@
+// The dashboard's reads of one run's results: a filtered, sorted page; chart data
+// downsampled to a bounded size; and the comparison of two runs. Large finished runs are
+// read from their results cache (results-cache.ts), the rest straight off the JSONB
+// columns; both give the same rows in the same order. Names reach SQL only after they
+// matched NAME_PATTERN and a column of the run; values always travel as parameters.
+import { getMethod } from '../physics/catalogue.js';
+import { InputError, type Inputs, type Outputs } from '../physics/types.js';
+import { getRun, type RunInfo } from './queries.js';
+import { CACHE_MIN_RESULTS, NAME_PATTERN, ensureCacheIndex, ensureResultsCache, scanRunColumns, type ResultsCache, type RunColumns } from './results-cache.js';
+import type { Store } from './store.js';
+
+export const MAX_PAGE_SIZE = 500;
+export const MAX_CHART_POINTS = 20_000;
+export const MAX_SERIES = 100;
+/** For runs still being written, names are read from this many rows (the cache reads all). */
+const COLUMN_SAMPLE = 20_000;
+
+export interface RangeFilter {
+  name: string;
+  min?: number;
+  max?: number;
+}
+
+export interface ResultsQuery {
+  page?: number;
+  pageSize?: number;
+  /** An input or output name, or `point` (default) or `method`. */
+  sort?: string;
+  order?: 'asc' | 'desc';
+  methods?: string[];
+  flagged?: 'any' | 'yes' | 'no';
+  filters?: RangeFilter[];
+}
+
+export interface ResultPageRow {
+  id: number;
+  point: number;
+  method: string;
+  inputs: Inputs;
+  outputs: Outputs;
+  flags: string[];
+}
+
+export interface ResultsPage {
+  total: number;
+  page: number;
+  pageSize: number;
+  rows: ResultPageRow[];
+}
+
+/** How SQL reaches a run's values: through its cache table or through the JSONB columns. */
+interface Source {
+  run: RunInfo;
+  columns: RunColumns;
+  cache?: ResultsCache;
+  from: string;
+  where: string[];
+  params: unknown[];
+}
+
+interface Expr {
+  sql: string;
+  params: unknown[];
+  /** Cache column, when the source is a cache. */
+  column?: string;
+}
+
+async function openSource(store: Store, runId: number): Promise<Source> {
+  const run = await getRun(store, runId);
+  if (!run) throw new InputError(`no run ${runId} in this database`);
+  const cache = ensureResultsCache(store, runId);
+  if (cache) return { run, columns: cache.columns, cache, from: `${cache.table} c`, where: [], params: [] };
+  const sample = run.results_count > COLUMN_SAMPLE || run.status === 'running' ? COLUMN_SAMPLE : undefined;
+  return {
+    run,
+    columns: scanRunColumns(store, runId, sample),
+    from: 'results r join points p on p.run_id = r.run_id and p.idx = r.point_idx',
+    where: ['r.run_id = ?'],
+    params: [runId],
+  };
+}
+
+/** The input and output names of a run (exact once the run is cached; sampled while it runs). */
+export async function getRunColumns(store: Store, runId: number): Promise<RunColumns> {
+  return (await openSource(store, runId)).columns;
+}
+
+function valueExpr(src: Source, name: string): Expr {
+  if (!NAME_PATTERN.test(name)) throw new InputError(`'${name}' is not a column name`);
+  // An output wins over an input of the same name: it is what the method computed.
+  if (src.cache) {
+    const column = src.cache.outputColumn.get(name) ?? src.cache.inputColumn.get(name);
+    if (column) return { sql: `c.${column}`, params: [], column };
+  } else if (src.columns.outputs.includes(name)) {
+    return { sql: 'r.outputs ->> ?', params: [`$."${name}"`] };
+  } else if (src.columns.inputs.includes(name)) {
+    return { sql: 'p.inputs ->> ?', params: [`$."${name}"`] };
+  }
+  const known = [...new Set([...src.columns.inputs, ...src.columns.outputs])].sort();
+  throw new InputError(`run ${src.run.id} has no input or output '${name}'; it has: ${known.join(', ')}`);
+}
+
+function col(src: Source, what: 'seq' | 'point' | 'method' | 'flagged' | 'id'): string {
+  if (src.cache) return { seq: 'c.seq', point: 'c.point_idx', method: 'c.method_idx', flagged: 'c.flagged', id: 'c.result_id' }[what];
+  return { seq: 'r.point_idx, r.method_idx', point: 'r.point_idx', method: 'r.method_idx', flagged: 'r.flagged', id: 'r.id' }[what];
+}
+
+function methodIndices(run: RunInfo, methods: string[]): number[] {
+  return methods.map((m) => {
+    const i = run.methods.findIndex((x) => x.id === m);
+    if (i < 0) throw new InputError(`run ${run.id} has no method '${m}'; it has: ${run.methods.map((x) => x.id).join(', ')}`);
+    return i;
+  });
+}
+
+interface Conditions {
+  sql: string[];
+  params: unknown[];
+  filterExprs: Expr[];
+}
+
+function conditions(src: Source, q: Pick<ResultsQuery, 'methods' | 'flagged' | 'filters'>): Conditions {
+  const out: Conditions = { sql: [...src.where], params: [...src.params], filterExprs: [] };
+  if (q.methods?.length) {
+    const idx = methodIndices(src.run, q.methods);
+    out.sql.push(`${col(src, 'method')} in (${idx.map(() => '?').join(', ')})`);
+    out.params.push(...idx);
+  }
+  if (q.flagged === 'yes') out.sql.push(`${col(src, 'flagged')} = 1`);
+  if (q.flagged === 'no') out.sql.push(`${col(src, 'flagged')} = 0`);
+  for (const f of q.filters ?? []) {
+    const e = valueExpr(src, f.name);
+    out.filterExprs.push(e);
+    if (f.min !== undefined) {
+      out.sql.push(`${e.sql} >= ?`);
+      out.params.push(...e.params, f.min);
+    }
+    if (f.max !== undefined) {
+      out.sql.push(`${e.sql} <= ?`);
+      out.params.push(...e.params, f.max);
+    }
+    if (f.min === undefined && f.max === undefined) {
+      out.sql.push(`${e.sql} is not null`);
+      out.params.push(...e.params);
+    }
+  }
+  return out;
+}
+
+const whereOf = (c: Conditions) => (c.sql.length ? ` where ${c.sql.join(' and ')}` : '');
+
+/**
+ * One page of a run's results. Order: the sort key, then point, then method (descending
+ * reverses all three); a missing value sorts below every number, as in SQLite.
+ */
+export async function queryResults(store: Store, runId: number, q: ResultsQuery = {}): Promise<ResultsPage> {
+  const page = Math.max(1, Math.floor(q.page ?? 1));
+  const pageSize = Math.min(MAX_PAGE_SIZE, Math.max(1, Math.floor(q.pageSize ?? 50)));
+  const dir = q.order === 'desc' ? 'desc' : 'asc';
+  const src = await openSource(store, runId);
+  const cond = conditions(src, q);
+  const sort = q.sort ?? 'point';
+  const sortExpr = sort === 'point' || sort === 'method' ? undefined : valueExpr(src, sort);
+
+  // With a cache, steer SQLite (measured on 1e6 results): count through the one filter's
+  // index (7 ms); for the page, walk the sort column's index when nothing but method or
+  // flag conditions narrow the rows (the first rows found are the page), look up the
+  // few matching rows through the filter's index when it leaves under 5 %, and otherwise
+  // scan the table once keeping the top rows (60 ms), which unlike an index walk does not
+  // degrade when the filter removes one end of the sort order.
+  let countHint = '';
+  let pageHint = '';
+  if (src.cache) {
+    const filterColumns = [...new Set(cond.filterExprs.map((e) => e.column!))];
+    const filterIndex = filterColumns.length === 1 ? ensureCacheIndex(store, src.cache, filterColumns[0]) : undefined;
+    if (filterIndex) countHint = ` indexed by ${filterIndex}`;
+    else if (filterColumns.length > 1) countHint = ' not indexed';
+    var pagePlan = (total: number) => {
+      const selective = total < src.run.results_count * 0.05;
+      if (selective && filterIndex) return ` indexed by ${filterIndex}`;
+      if (sort === 'point') return '';
+      if (filterColumns.length === 0 && !selective) return ` indexed by ${ensureCacheIndex(store, src.cache!, sortExpr ? sortExpr.column! : 'method_idx')}`;
+      return ' not indexed';
+    };
+  }
+  const total = Number(
+    store.sqlite.prepare(`select count(*) from ${src.from}${countHint}${whereOf(cond)}`).pluck().get(...cond.params),
+  );
+  if (src.cache) pageHint = pagePlan!(total);
+
+  const order =
+    sort === 'point'
+      ? `${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`
+      : sort === 'method'
+        ? `${col(src, 'method')} ${dir}, ${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`
+        : `${sortExpr!.sql} ${dir}, ${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`;
+  const ids = store.sqlite
+    .prepare(`select ${col(src, 'id')} from ${src.from}${pageHint}${whereOf(cond)} order by ${order} limit ? offset ?`)
+    .pluck()
+    .all(...cond.params, ...(sortExpr?.params ?? []), pageSize, (page - 1) * pageSize) as number[];
+  return { total, page, pageSize, rows: readRows(store, ids) };
+}
+
+/** Full rows for result ids, in the given order. */
+function readRows(store: Store, ids: number[]): ResultPageRow[] {
+  if (ids.length === 0) return [];
+  const raw = store.sqlite
+    .prepare(
+      `select r.id, r.point_idx, r.method, r.flags, json(p.inputs) as inputs, json(r.outputs) as outputs
+       from results r join points p on p.run_id = r.run_id and p.idx = r.point_idx
+       where r.id in (${ids.map(() => '?').join(', ')})`,
+    )
+    .all(...ids) as { id: number; point_idx: number; method: string; flags: string; inputs: string; outputs: string }[];
+  const byId = new Map(raw.map((r) => [r.id, r]));
+  return ids.map((id) => {
+    const r = byId.get(id)!;
+    return { id: r.id, point: r.point_idx, method: r.method, inputs: JSON.parse(r.inputs), outputs: JSON.parse(r.outputs), flags: JSON.parse(r.flags) };
+  });
+}
+
+export interface ChartQuery {
+  x: string;
+  y: string;
+  /** `method` (default) or an input name: one series per method and value of that input. */
+  series?: string;
+  methods?: string[];
+  filters?: RangeFilter[];
+  /** Upper bound on the points returned over all series (default 2000). */
+  max?: number;
+}
+
+export interface ChartSeries {
+  name: string;
+  method: string;
+  /** [x, y, flagged 0|1], sorted by x. */
+  points: [number, number, 0 | 1][];
+}
+
+export interface ChartData {
+  x: string;
+  y: string;
+  /** Results with both x and y, before downsampling. */
+  total: number;
+  downsampled: boolean;
+  series: ChartSeries[];
+  /** Stated uncertainty of each method, as a fraction. */
+  uncertainty: Record<string, number>;
+}
+
+/**
+ * x–y data per series. When more than `max` results qualify, each series is cut into
+ * buckets along x (logarithmic when every x is positive, as the charts are log-log) and
+ * each bucket keeps its lowest and highest y: the envelope survives, the payload stays
+ * at most `max` points however large the run.
+ */
+export async function chartData(store: Store, runId: number, q: ChartQuery): Promise<ChartData> {
+  const max = Math.min(MAX_CHART_POINTS, Math.max(10, Math.floor(q.max ?? 2000)));
+  const src = await openSource(store, runId);
+  const cond = conditions(src, { methods: q.methods, filters: q.filters });
+  const x = valueExpr(src, q.x);
+  const y = valueExpr(src, q.y);
+  const bySeries = q.series && q.series !== 'method' ? valueExpr(src, q.series) : undefined;
+  const m = col(src, 'method');
+  const f = col(src, 'flagged');
+  const seriesSql = bySeries ? `${m} || '|' || coalesce(${bySeries.sql}, '')` : `${m}`;
+  const baseParams = [...(bySeries?.params ?? []), ...x.params, ...y.params, ...cond.params, ...x.params, ...y.params];
+  // Numbers only: a string or switch value cannot be plotted.
+  const numeric = (e: Expr) => `typeof(${e.sql}) in ('integer', 'real')`;
+  const base =
+    `select ${seriesSql} as s, ${m} as m, ${x.sql} as x, ${y.sql} as y, ${f} as f from ${src.from}` +
+    `${whereOf(cond)}${cond.sql.length ? ' and ' : ' where '}${numeric(x)} and ${numeric(y)}`;
+
+  const seriesRows = store.sqlite
+    .prepare(`with src as (${base}) select s, m, count(*) as n, min(x) as lo, max(x) as hi from src group by s order by m, s`)
+    .all(...baseParams) as { s: string; m: number; n: number; lo: number; hi: number }[];
+  if (seriesRows.length > MAX_SERIES) {
+    throw new InputError(`series by '${q.series}' gives ${seriesRows.length} series; at most ${MAX_SERIES} can be plotted`);
+  }
+  const total = seriesRows.reduce((a, s) => a + s.n, 0);
+  const downsampled = total > max;
+  const points = new Map<string, [number, number, 0 | 1][]>();
+  if (!downsampled) {
+    const rows = store.sqlite.prepare(`${base} order by ${m}, x, y`).raw().all(...baseParams) as [string, number, number, number, number][];
+    for (const [s, , xv, yv, fv] of rows) push(points, s, [xv, yv, fv ? 1 : 0]);
+  } else {
+    const buckets = Math.max(1, Math.floor(max / (2 * seriesRows.length)));
+    const logX = seriesRows.every((s) => s.lo > 0);
+    const pos = logX ? '(ln(src.x) - ln(e.lo)) / (ln(e.hi) - ln(e.lo))' : '(src.x - e.lo) / (e.hi - e.lo)';
+    const bucketed =
+      `with src as (${base}), e as (select s, min(x) as lo, max(x) as hi from src group by s), ` +
+      `b as (select src.s, src.x, src.y, src.f, case when e.hi = e.lo then 0 else min(${buckets - 1}, cast(${pos} * ${buckets} as integer)) end as k ` +
+      `from src join e on e.s = src.s) `;
+    // A lone min() or max() makes SQLite take the other columns from that row.
+    const lows = store.sqlite.prepare(`${bucketed} select s, k, x, min(y) as y, f from b group by s, k`).raw().all(...baseParams);
+    const highs = store.sqlite.prepare(`${bucketed} select s, k, x, max(y) as y, f from b group by s, k`).raw().all(...baseParams);
+    const seen = new Set<string>();
+    for (const [s, k, xv, yv, fv] of [...(lows as unknown[][]), ...(highs as unknown[][])] as [string, number, number, number, number][]) {
+      const key = `${s}\u0000${k}\u0000${xv}\u0000${yv}`;
+      if (seen.has(key)) continue;
+      seen.add(key);
+      push(points, s, [xv, yv, fv ? 1 : 0]);
+    }
+    for (const list of points.values()) list.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+  }
+
+  const uncertainty: Record<string, number> = {};
+  const series: ChartSeries[] = seriesRows.map((s) => {
+    const method = src.run.methods[s.m].id;
+    uncertainty[method] ??= methodUncertainty(src.run.configuration, method);
+    const value = bySeries ? String(s.s).slice(String(s.m).length + 1) : undefined;
+    return { name: bySeries ? `${method}, ${q.series} = ${value}` : method, method, points: points.get(String(s.s)) ?? [] };
+  });
+  return { x: q.x, y: q.y, total, downsampled, series, uncertainty };
+}
+
+function push<T>(map: Map<string, T[]>, key: unknown, value: T) {
+  const k = String(key);
+  const list = map.get(k);
+  if (list) list.push(value);
+  else map.set(k, [value]);
+}
+
+function methodUncertainty(configuration: string, method: string): number {
+  try {
+    return getMethod(configuration, method).uncertainty.fraction;
+  } catch (e) {
+    if (e instanceof InputError) return NaN; // a method since removed from the catalogue
+    throw e;
+  }
+}
+
+export interface CompareQuery {
+  output: string;
+  page?: number;
+  pageSize?: number;
+  /** `yes`: only pairs whose value differs. */
+  changed?: 'yes' | 'any';
+}
+
+export interface CompareRow {
+  method: string;
+  inputs: Inputs;
+  a: number | null;
+  b: number | null;
+  /** (b − a)/|a|; null when either is missing or a is 0. */
+  rel_diff: number | null;
+}
+
+export interface Comparison {
+  a: RunInfo;
+  b: RunInfo;
+  output: string;
+  /** Pairs shown by `changed` (before paging). */
+  total: number;
+  /** Pairs whose value differs. */
+  changed: number;
+  only_a: number;
+  only_b: number;
+  rows: CompareRow[];
+}
+
+/** Values differing by less than this (relative) count as unchanged: the last bits of a double. */
+const SAME = 1e-12;
+
+/**
+ * Pairs the results of two runs by method and inputs (key order ignored) and compares
+ * one output. Rows in run a's point and method order.
+ */
+export async function compareRuns(store: Store, aId: number, bId: number, q: CompareQuery): Promise<Comparison> {
+  if (!NAME_PATTERN.test(q.output)) throw new InputError(`'${q.output}' is not an output name`);
+  const [a, b] = await Promise.all([getRun(store, aId), getRun(store, bId)]);
+  if (!a) throw new InputError(`no run ${aId} in this database`);
+  if (!b) throw new InputError(`no run ${bId} in this database`);
+  const page = Math.max(1, Math.floor(q.page ?? 1));
+  const pageSize = Math.min(MAX_PAGE_SIZE, Math.max(1, Math.floor(q.pageSize ?? 50)));
+  const read = store.sqlite.prepare(
+    `select r.method, json(p.inputs) as inputs, r.outputs ->> ? as v from results r
+     join points p on p.run_id = r.run_id and p.idx = r.point_idx where r.run_id = ? order by r.point_idx, r.method_idx`,
+  );
+  const path = `$."${q.output}"`;
+  const key = (method: string, inputs: string) => `${method}\u0000${canonical(inputs)}`;
+  const bValues = new Map<string, number | null>();
+  for (const r of read.iterate(path, bId) as Iterable<{ method: string; inputs: string; v: unknown }>) {
+    bValues.set(key(r.method, r.inputs), typeof r.v === 'number' ? r.v : null);
+  }
+  const pairs: CompareRow[] = [];
+  let changed = 0;
+  let onlyA = 0;
+  const matched = new Set<string>();
+  for (const r of read.iterate(path, aId) as Iterable<{ method: string; inputs: string; v: unknown }>) {
+    const k = key(r.method, r.inputs);
+    if (!bValues.has(k)) {
+      onlyA++;
+      continue;
+    }
+    matched.add(k);
+    const av = typeof r.v === 'number' ? r.v : null;
+    const bv = bValues.get(k)!;
+    const rel = av !== null && bv !== null && av !== 0 ? (bv - av) / Math.abs(av) : null;
+    const differs = av === null || bv === null ? av !== bv : Math.abs(bv - av) > SAME * Math.max(Math.abs(av), Math.abs(bv));
+    if (differs) changed++;
+    if (q.changed === 'yes' && !differs) continue;
+    pairs.push({ method: r.method, inputs: JSON.parse(r.inputs) as Inputs, a: av, b: bv, rel_diff: rel });
+  }
+  const onlyB = bValues.size - matched.size;
+  return {
+    a,
+    b,
+    output: q.output,
+    total: pairs.length,
+    changed,
+    only_a: onlyA,
+    only_b: onlyB,
+    rows: pairs.slice((page - 1) * pageSize, page * pageSize),
+  };
+}
+
+function canonical(json: string): string {
+  const value = JSON.parse(json) as Record<string, unknown>;
+  return JSON.stringify(Object.keys(value).sort().map((k) => [k, value[k]]));
+}
+
+export { CACHE_MIN_RESULTS };

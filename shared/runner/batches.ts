@@ -1,0 +1,40 @@
+// How many points go into the next batch. Each batch is one worker task and one database
+// transaction: too small and the per-task and per-commit costs dominate, too large and an
+// interrupt waits long, progress stalls and the last batches are shared out unevenly.
+// Batching never changes results, only throughput.
+
+/** Compute time a batch should take once the per-point cost is known. */
+export const TARGET_BATCH_MS = 200;
+export const MIN_BATCH = 16;
+export const MAX_BATCH = 2000;
+
+export class BatchSizer {
+  private msPerPoint: number | undefined;
+
+  /** `fixed`: always that size. Otherwise start at MIN_BATCH and adapt. */
+  constructor(
+    private readonly points: number,
+    private readonly workers: number,
+    private readonly fixed?: number,
+  ) {
+    if (fixed !== undefined && !(Number.isInteger(fixed) && fixed >= 1)) {
+      throw new RangeError(`batch size must be a whole number ≥ 1, got ${fixed}`);
+    }
+  }
+
+  next(): number {
+    if (this.fixed !== undefined) return this.fixed;
+    if (this.msPerPoint === undefined) return MIN_BATCH;
+    const ideal = Math.round(TARGET_BATCH_MS / Math.max(this.msPerPoint, 1e-6));
+    // At least four batches per worker, so the tail of the sweep is shared evenly.
+    const share = Math.ceil(this.points / (this.workers * 4));
+    return Math.max(MIN_BATCH, Math.min(MAX_BATCH, ideal, share));
+  }
+
+  /** Feeds back a finished batch's compute time (smoothed). */
+  observe(points: number, computeMs: number): void {
+    if (points <= 0) return;
+    const perPoint = computeMs / points;
+    this.msPerPoint = this.msPerPoint === undefined ? perPoint : 0.7 * this.msPerPoint + 0.3 * perPoint;
+  }
+}

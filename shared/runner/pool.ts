@@ -1,0 +1,27 @@
+// The worker-thread pool (piscina). Workers load plain JavaScript, so the worker is always
+// the compiled dist/shared/runner/worker.js: next to this module when it runs from dist/,
+// and the built copy when this module runs from the TypeScript sources (vitest).
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { Piscina } from 'piscina';
+import type { BatchTask, ComputedBatch, WorkerData } from './batch-task.js';
+
+export function workerFile(): string {
+  const beside = fileURLToPath(new URL('./worker.js', import.meta.url));
+  if (existsSync(beside)) return beside;
+  const built = fileURLToPath(new URL('../../dist/shared/runner/worker.js', import.meta.url));
+  if (existsSync(built)) return built;
+  throw new Error(`worker not found at ${beside} or ${built}: run \`npm run build\` first`);
+}
+
+export type SweepPool = Piscina<BatchTask, ComputedBatch>;
+
+export function createPool(workers: number, data: WorkerData): SweepPool {
+  return new Piscina<BatchTask, ComputedBatch>({
+    filename: workerFile(),
+    minThreads: workers,
+    maxThreads: workers,
+    idleTimeout: 60_000,
+    workerData: data,
+  });
+}

@@ -1,0 +1,309 @@
+// Running a study: validate in the main thread, compute batches in the worker pool (each
+// worker builds its points from their indices), write each finished batch from the main
+// thread in its own transaction, and end the run done, failed or interrupted. `resumeRun` finishes an unfinished run from its
+// stored study version, computing only the points that have no results yet.
+import { dirname, resolve } from 'node:path';
+import os from 'node:os';
+import pLimit from 'p-limit';
+import { getMethod, methodsFor } from '../physics/catalogue.js';
+import { compileSolver, type SolvePlan } from '../physics/engine.js';
+import { InputError } from '../physics/types.js';
+import { countPoints, loadStudyFile, parseStudy, pointAt, type LoadedStudy } from '../study/index.js';
+import {
+  claimRunForResume,
+  closeStore,
+  createBatchWriter,
+  createRun,
+  finishRun,
+  getRunSource,
+  openStore,
+  resumeRefusal,
+  type MethodVersion,
+  type RunStatus,
+  type Store,
+} from '../db/index.js';
+import { BatchSizer } from './batches.js';
+import { gitCommit, hostName, processAlive } from './environment.js';
+import { createPool } from './pool.js';
+import { toRanges } from './batch-task.js';
+
+/** A study checked and ready to run; nothing has touched the database yet. */
+export interface PreparedStudy {
+  loaded: LoadedStudy;
+  plan: SolvePlan;
+  methods: MethodVersion[];
+  /** Number of points; point ids are 0 … total − 1 (the study's pointAt order). */
+  total: number;
+}
+
+export interface RunProgress {
+  runId: number;
+  study: string;
+  /** Points with results, including those done before a resume. */
+  done: number;
+  total: number;
+  /** Points that were already done when this process started (for the rate). */
+  doneAtStart: number;
+  results: number;
+  flagged: number;
+  elapsedMs: number;
+}
+
+export interface RunOptions {
+  /** Worker threads; default os.availableParallelism(). */
+  workers?: number;
+  /** Points per batch; default adapts so a batch takes about 0.2 s of compute (16 … 2000 points). */
+  batchSize?: number;
+  /** Batches in flight at once (p-limit); default 2 per worker. */
+  inFlight?: number;
+  /** Stop scheduling; batches in flight finish and are committed; the run ends `interrupted`. */
+  stop?: AbortSignal;
+  /** Drop the batches in flight too (a second Ctrl-C); the run ends `interrupted`. */
+  cancel?: AbortSignal;
+  onProgress?: (p: RunProgress) => void;
+  /** Called once the run exists in the database. */
+  onStart?: (info: { runId: number; study: string; total: number; done: number }) => void;
+}
+
+/** The outcome of one run, as `run --json` prints it (plus the error text of a failed run). */
+export interface RunOutcome {
+  id: number;
+  study: string;
+  status: RunStatus;
+  points_total: number;
+  points_done: number;
+  results: number;
+  flagged: number;
+  seconds: number;
+  error?: string;
+}
+
+export function defaultWorkers(): number {
+  return os.availableParallelism();
+}
+
+function methodVersions(plan: SolvePlan): MethodVersion[] {
+  const methods = plan.methods?.length
+    ? plan.methods.map((id) => getMethod(plan.configuration, id))
+    : methodsFor(plan.configuration);
+  return methods.map((m) => ({ id: m.id, version: m.version }));
+}
+
+/**
+ * Everything that can reject a study before a run is written: the catalogue lookups
+ * (configuration, methods, fluid), the point count, and the first point solved here,
+ * which catches inputs the engine cannot use. Throws InputError (or the study's
+ * StudyError). The sweep is not expanded here: the workers build their own points.
+ */
+export function prepareStudy(loaded: LoadedStudy): PreparedStudy {
+  const { study } = loaded;
+  const plan: SolvePlan = { configuration: study.configuration, methods: study.methods, fluid: study.fluid };
+  const solve = compileSolver(plan, { strict: false });
+  const methods = methodVersions(plan);
+  const total = countPoints(study);
+  if (total > 0) solve(pointAt(study, 0));
+  return { loaded, plan, methods, total };
+}
+
+export async function runStudy(store: Store, prepared: PreparedStudy, options: RunOptions = {}): Promise<RunOutcome> {
+  const workers = resolveWorkers(options.workers);
+  const { loaded } = prepared;
+  const runId = await createRun(store, {
+    study: { name: loaded.study.name, title: loaded.study.title ?? null, configuration: loaded.study.configuration },
+    yaml: loaded.text,
+    hash: loaded.hash,
+    sourceFile: resolve(loaded.file),
+    methods: prepared.methods,
+    pointsTotal: prepared.total,
+    workers,
+    host: hostName(),
+    pid: process.pid,
+    gitCommit: gitCommit(dirname(resolve(loaded.file))),
+  });
+  const todo = Array.from({ length: prepared.total }, (_, i) => i);
+  return execute(store, runId, prepared, todo, { results: 0, flagged: 0 }, workers, options);
+}
+
+export interface ResumeOptions extends RunOptions {
+  /** Take over a `running` run even when its process may be alive (another host, reused pid). */
+  force?: boolean;
+}
+
+export async function resumeRun(store: Store, runId: number, options: ResumeOptions = {}): Promise<RunOutcome> {
+  const workers = resolveWorkers(options.workers);
+  const source = await getRunSource(store, runId);
+  if (!source) throw new InputError(`no run ${runId} in this database`);
+  const isAlive = options.force ? () => false : processAlive;
+  const refusal = resumeRefusal(runId, source, isAlive);
+  if (refusal) throw new InputError(refusal);
+
+  // Rebuild the sweep from the stored text, never from the file on disk (it may have changed).
+  const loaded = parseStudy(source.yaml, source.sourceFile ?? `run-${runId}.yaml`, { maxPoints: Math.max(source.pointsTotal, 1) });
+  if (loaded.hash !== source.hash) throw new Error(`run ${runId}: stored study text does not match its hash`);
+  const prepared = prepareStudy(loaded);
+  if (prepared.total !== source.pointsTotal) {
+    throw new InputError(`run ${runId}: the study now expands to ${prepared.total} points, the run has ${source.pointsTotal}`);
+  }
+  const changed = methodChanges(source.methods, prepared.methods);
+  if (changed) throw new InputError(`run ${runId} cannot be resumed with this version of Filmsweep: ${changed}; start a new run`);
+
+  const donePoints = await claimRunForResume(store, runId, { host: hostName(), pid: process.pid, workers }, isAlive);
+  const todo: number[] = [];
+  for (let i = 0; i < prepared.total; i++) if (!donePoints.has(i)) todo.push(i);
+  const counts = await store.db
+    .selectFrom('runs')
+    .select(['results_count', 'flagged_count'])
+    .where('id', '=', runId)
+    .executeTakeFirstOrThrow();
+  return execute(store, runId, prepared, todo, { results: counts.results_count, flagged: counts.flagged_count }, workers, options);
+}
+
+function methodChanges(stored: MethodVersion[], now: MethodVersion[]): string | undefined {
+  const was = stored.map((m) => `${m.id} v${m.version}`).join(', ');
+  const is = now.map((m) => `${m.id} v${m.version}`).join(', ');
+  return was === is ? undefined : `the run used ${was}, this build has ${is}`;
+}
+
+function resolveWorkers(workers: number | undefined): number {
+  const n = workers ?? defaultWorkers();
+  if (!Number.isInteger(n) || n < 1) throw new InputError(`workers: expected a whole number ≥ 1, got ${n}`);
+  return n;
+}
+
+async function execute(
+  store: Store,
+  runId: number,
+  prepared: PreparedStudy,
+  todo: number[],
+  counts: { results: number; flagged: number },
+  workers: number,
+  options: RunOptions,
+): Promise<RunOutcome> {
+  const started = performance.now();
+  const study = prepared.loaded.study.name;
+  const total = prepared.total;
+  const doneAtStart = total - todo.length;
+  let done = doneAtStart;
+  let { results, flagged } = counts;
+  options.onStart?.({ runId, study, total, done });
+
+  let failure: unknown;
+  try {
+    failure = await computeAndWrite(store, runId, prepared, todo, workers, options, (w) => {
+      done += w.points;
+      results += w.results;
+      flagged += w.flagged;
+      options.onProgress?.({ runId, study, done, total, doneAtStart, results, flagged, elapsedMs: performance.now() - started });
+    });
+  } catch (e) {
+    // Not a batch's error (those end as a failed run below) but the pool failing to start
+    // or the like: record it rather than leave the run "running".
+    await finishRun(store, runId, 'failed', describe(e)).catch(() => {});
+    throw e;
+  }
+
+  const status: RunStatus = failure !== undefined ? 'failed' : done < total ? 'interrupted' : 'done';
+  const error = failure !== undefined ? describe(failure) : undefined;
+  await finishRun(store, runId, status, error);
+  return {
+    id: runId,
+    study,
+    status,
+    points_total: total,
+    points_done: done,
+    results,
+    flagged,
+    seconds: (performance.now() - started) / 1000,
+    ...(error !== undefined ? { error } : {}),
+  };
+}
+
+/**
+ * Cuts `todo` into batches, has the pool compute them and writes each one as it
+ * returns. Stops cutting on `stop`, on `cancel` (which also drops batches in flight) or
+ * at the first failed batch; resolves with that batch's error, if any.
+ */
+async function computeAndWrite(
+  store: Store,
+  runId: number,
+  prepared: PreparedStudy,
+  todo: number[],
+  workers: number,
+  options: RunOptions,
+  onWritten: (w: { points: number; results: number; flagged: number }) => void,
+): Promise<unknown> {
+  if (todo.length === 0) return undefined;
+  const methodIds = prepared.methods.map((m) => m.id);
+  const writer = createBatchWriter(store, runId, methodIds);
+  const { inputs, sweep } = prepared.loaded.study;
+  const pool = createPool(workers, { sweep: { inputs, sweep }, plan: prepared.plan, methodIds });
+  const sizer = new BatchSizer(todo.length, workers, options.batchSize);
+  const inFlight = options.inFlight ?? workers * 2;
+  const limit = pLimit(inFlight);
+  let failure: unknown;
+  const stopped = () => options.stop?.aborted || options.cancel?.aborted || failure !== undefined;
+
+  const runBatch = async (batch: number[]) => {
+    if (stopped()) return;
+    const computed = await pool.run({ ranges: toRanges(batch) }, { signal: options.cancel ?? null });
+    if (options.cancel?.aborted) return;
+    sizer.observe(batch.length, computed.computeMs);
+    onWritten(writer.write(computed));
+  };
+
+  // p-limit runs at most `inFlight` batches at once; a batch is cut only when a slot is
+  // free, so its size uses the latest timing and a stop leaves nothing queued.
+  const running = new Set<Promise<void>>();
+  try {
+    let cursor = 0;
+    while (cursor < todo.length && !stopped()) {
+      if (running.size >= inFlight) {
+        await Promise.race(running);
+        continue;
+      }
+      const batch = todo.slice(cursor, cursor + sizer.next());
+      cursor += batch.length;
+      const task: Promise<void> = limit(runBatch, batch)
+        .catch((e: unknown) => {
+          if (isAbort(e) && options.cancel?.aborted) return; // dropped on purpose
+          failure ??= e ?? new Error('a batch failed without an error');
+        })
+        .finally(() => running.delete(task));
+      running.add(task);
+    }
+    await Promise.all(running);
+  } finally {
+    await pool.destroy();
+  }
+  return failure;
+}
+
+function isAbort(e: unknown): boolean {
+  const name = (e as { name?: unknown } | null)?.name;
+  return name === 'AbortError';
+}
+
+function describe(e: unknown): string {
+  if (e instanceof Error) return e.message;
+  return String(e);
+}
+
+export interface RunFileOptions extends RunOptions {
+  /** Database file (see resolveDbPath for the CLI default). */
+  db: string;
+  maxPoints?: number;
+}
+
+/**
+ * One study file from disk to the database, without the CLI (benchmarks, scripts):
+ * load, validate, open the store, run, close.
+ */
+export async function runStudyFile(file: string, options: RunFileOptions): Promise<RunOutcome> {
+  const prepared = prepareStudy(loadStudyFile(file, { maxPoints: options.maxPoints }));
+  const store = await openStore(options.db);
+  try {
+    return await runStudy(store, prepared, options);
+  } finally {
+    await closeStore(store);
+  }
+}
