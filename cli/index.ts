@@ -5,9 +5,18 @@ import { FluidRangeError } from '../shared/physics/fluids/types.js';
 import { UnitError } from '../shared/study/units.js';
 import { StudyError } from '../shared/study/errors.js';
 import { EXIT, ExitError } from './errors.js';
+import { register as registerRun } from './commands/run.js';
+import { register as registerCheck } from './commands/check.js';
+import { register as registerResume } from './commands/resume.js';
+import { register as registerList } from './commands/list.js';
+import { register as registerShow } from './commands/show.js';
+import { register as registerExport } from './commands/export.js';
 import { register as registerMethods } from './commands/methods.js';
 import { register as registerFluid } from './commands/fluid.js';
 import { register as registerSolve } from './commands/solve.js';
+import { register as registerSchema } from './commands/schema.js';
+import { register as registerInit } from './commands/init.js';
+import { register as registerMigrate } from './commands/migrate.js';
 
 const program = new Command();
 program
@@ -17,7 +26,8 @@ program
   .showHelpAfterError('(run with --help for usage)')
   .exitOverride();
 
-for (const register of [registerMethods, registerFluid, registerSolve]) register(program);
+// Order of `--help`: the sweep loop first, then browsing, then the physics tools.
+for (const register of [registerRun, registerCheck, registerResume, registerList, registerShow, registerExport, registerMethods, registerFluid, registerSolve, registerSchema, registerInit, registerMigrate]) register(program);
 
 function fail(code: number, message: string): never {
   process.stderr.write(`filmsweep: ${message}\n`);

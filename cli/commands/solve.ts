@@ -1,7 +1,7 @@
 // `filmsweep solve CONFIGURATION`: one point without a study file, every applicable
 // method side by side (or only --method), in the row format of exports.
 import type { Command } from 'commander';
-import { solvePoint } from '../../shared/physics/engine.js';
+import { missingInputs, solvePoint } from '../../shared/physics/engine.js';
 import { printJson, table } from '../format.js';
 import { parseSets } from '../values.js';
 
@@ -27,7 +27,10 @@ export function register(program: Command) {
       const inputs = parseSets(opts.set);
       if (opts.profiles) inputs.profiles = true;
       const methods = opts.method.flatMap((m) => m.split(',')).filter(Boolean);
-      const rows = solvePoint({ configuration, methods, fluid: opts.fluid }, inputs);
+      const plan = { configuration, methods, fluid: opts.fluid };
+      const rows = solvePoint(plan, inputs);
+      const skipped = methods.length ? [] : missingInputs(plan, Object.keys(inputs));
+      for (const s of skipped) process.stderr.write(`note: skipped ${s.method} (needs ${s.missing.join(', ')})\n`);
       if (opts.json) {
         printJson({ rows });
         return;

@@ -69,9 +69,7 @@ export interface SolveOptions {
 
 export function compileSolver(plan: SolvePlan, options: SolveOptions = {}): (inputs: Inputs) => ResultRow[] {
   const configuration = requireConfiguration(plan.configuration);
-  const methods = plan.methods?.length
-    ? plan.methods.map((id) => getMethod(plan.configuration, id))
-    : methodsFor(plan.configuration);
+  const methods = planMethods(plan);
   const fluid = plan.fluid === undefined ? undefined : resolveFluid(plan.fluid);
   const strict = options.strict ?? false;
   return (inputs) =>
@@ -89,7 +87,21 @@ export function compileSolver(plan: SolvePlan, options: SolveOptions = {}): (inp
 
 /** One point without a study: what `filmsweep solve` does. */
 export function solvePoint(plan: SolvePlan, inputs: Inputs, options: SolveOptions = { strict: true }): ResultRow[] {
-  return compileSolver(plan, options)(inputs);
+  const names = Object.keys(inputs);
+  const unknown = unknownInputs(plan, names);
+  if (unknown.length) {
+    throw new InputError(
+      `unknown input '${unknown[0]}' for configuration '${plan.configuration}'; expected one of: ${knownInputs(plan).join(', ')}`,
+    );
+  }
+  const missing = missingInputs(plan, names);
+  if (plan.methods?.length ? missing.length : missing.length === planMethods(plan).length) {
+    throw new InputError(missing.map((m) => `method '${m.method}' needs ${m.missing.map((n) => `'${n}'`).join(', ')}`).join('; '));
+  }
+  // Without --method, "every applicable method": those whose inputs the point provides.
+  const methods = plan.methods?.length ? plan.methods : planMethods(plan).map((m) => m.id).filter((id) => !missing.some((x) => x.method === id));
+  const solver = compileSolver({ ...plan, methods }, options);
+  return solver(inputs);
 }
 
 function solveMethod(method: Method, configuration: Configuration, fluid: Fluid | undefined, inputs: Inputs): ResultRow {
@@ -355,9 +367,7 @@ export function derivableInputs(configurationId: string, names: readonly string[
 
 /** For each method of the plan, the required inputs that are neither given nor derivable. */
 export function missingInputs(plan: SolvePlan, names: readonly string[]): { method: string; missing: string[] }[] {
-  const methods = plan.methods?.length
-    ? plan.methods.map((id) => getMethod(plan.configuration, id))
-    : methodsFor(plan.configuration);
+  const methods = planMethods(plan);
   const available = new Set([...names, ...derivableInputs(plan.configuration, names, plan.fluid !== undefined)]);
   const report: { method: string; missing: string[] }[] = [];
   for (const m of methods) {
@@ -369,12 +379,20 @@ export function missingInputs(plan: SolvePlan, names: readonly string[]): { meth
   return report;
 }
 
+/** Every input name the plan's methods or the dimensional engine understand. */
+export function knownInputs(plan: SolvePlan): string[] {
+  const known = new Set<string>();
+  for (const m of planMethods(plan)) for (const s of m.inputs) known.add(s.name);
+  for (const n of dimensionalNames) known.add(n);
+  return [...known];
+}
+
 /** Input names that no method of the plan and no dimensional rule uses (likely typos). */
 export function unknownInputs(plan: SolvePlan, names: readonly string[]): string[] {
-  const methods = plan.methods?.length
-    ? plan.methods.map((id) => getMethod(plan.configuration, id))
-    : methodsFor(plan.configuration);
-  const known = new Set<string>([...dimensionalNames, 'profiles']);
-  for (const m of methods) for (const s of m.inputs) known.add(s.name);
+  const known = new Set([...knownInputs(plan), 'profiles']);
   return names.filter((n) => !known.has(n));
+}
+
+function planMethods(plan: SolvePlan): Method[] {
+  return plan.methods?.length ? plan.methods.map((id) => getMethod(plan.configuration, id)) : methodsFor(plan.configuration);
 }
