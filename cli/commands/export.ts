@@ -18,7 +18,7 @@ export function register(program: Command) {
       if (opts.format === 'xlsx' && !opts.out && process.stdout.isTTY) {
         throw new InputError('--format xlsx writes a binary file: give --out FILE.xlsx or redirect standard output');
       }
-      const store = await openStore(resolveDbPath(opts.db));
+      const store = await openStore(resolveDbPath(opts.db), { create: false });
       try {
         const run = await resolveRunRef(store, ref);
         const data = await getRunRows(store, run.id);
