@@ -115,7 +115,7 @@ describe('filmsweep solve', () => {
     const cases: [string[], RegExp][] = [
       [['solve', 'teapot'], /unknown configuration 'teapot'/],
       [['solve', 'pipe', '--method', 'magic', '--set', 'Re=1e4', '--set', 'Pr=1'], /unknown method 'magic'.*gnielinski/],
-      [['solve', 'pipe', '--set', 'Re=lots', '--set', 'Pr=1'], /expected a number/],
+      [['solve', 'pipe', '--set', 'Re=lots', '--set', 'Pr=1'], /'Re' must be a finite number/],
       [['solve', 'pipe', '--set', 'diameter=3 kg'], /wrong dimension/],
       [['solve', 'pipe', '--fluid', 'unobtainium', '--set', 'Re=1e4'], /unknown fluid|unobtainium/],
       [['solve', 'pipe', '--set', 'Re'], /expected NAME=VALUE/],

@@ -108,7 +108,8 @@ function solveMethod(method: Method, configuration: Configuration, fluid: Fluid 
   const dimensional = Object.keys(inputs).some((k) => dimensionalNames.has(k));
   if (!dimensional) {
     if (fluid) throw new InputError('a fluid was given but no fluid_temperature: properties need a temperature');
-    const r = evaluate(method, inputs);
+    // Each method sees only the inputs it declares: one point feeds several methods.
+    const r = evaluate(method, declaredInputs(method, inputs, {}));
     return withProfiles({ method: method.id, inputs, outputs: r.outputs, flags: r.flags }, r.profiles);
   }
   if (!fluid) {
@@ -183,13 +184,8 @@ function solveDimensional(method: Method, configuration: Configuration, fluid: F
   if (geometry.L_over_D !== undefined) derived.L_over_D = geometry.L_over_D;
   if (geometry.aspect_ratio !== undefined) derived.aspect_ratio = geometry.aspect_ratio;
 
-  // Explicit dimensionless inputs win over derived ones; pass only what the method declares.
-  const methodInputs: Inputs = {};
-  for (const spec of method.inputs) {
-    const v = inputs[spec.name] ?? derived[spec.name];
-    if (v !== undefined) methodInputs[spec.name] = v;
-  }
-  if (inputs.profiles === true) methodInputs.profiles = true;
+  // Explicit dimensionless inputs win over derived ones.
+  const methodInputs = declaredInputs(method, inputs, derived);
   if (methodInputs.Re !== undefined && velocity === undefined && configuration.regime !== 'free') {
     derived.velocity = ((methodInputs.Re as number) * props.nu) / geometry.length;
   }
@@ -209,7 +205,10 @@ function evaluate(method: Method, inputs: Inputs) {
   try {
     return method.evaluate(inputs);
   } catch (e) {
-    if (e instanceof InputError) throw new MethodDomainError(`${method.configuration}/${method.id}: ${e.message}`);
+    if (e instanceof InputError) {
+      const id = `${method.configuration}/${method.id}`;
+      throw new MethodDomainError(e.message.startsWith(id) ? e.message : `${id}: ${e.message}`);
+    }
     throw e;
   }
 }
@@ -217,6 +216,17 @@ function evaluate(method: Method, inputs: Inputs) {
 function withProfiles(row: ResultRow, profiles: Record<string, number[]> | undefined): ResultRow {
   if (profiles) row.profiles = profiles;
   return row;
+}
+
+/** The inputs a method declares, from the point or else from the derived groups. */
+function declaredInputs(method: Method, inputs: Inputs, derived: Outputs): Inputs {
+  const picked: Inputs = {};
+  for (const spec of method.inputs) {
+    const v = inputs[spec.name] ?? derived[spec.name];
+    if (v !== undefined) picked[spec.name] = v;
+  }
+  if (inputs.profiles === true) picked.profiles = true;
+  return picked;
 }
 
 interface Geometry {
