@@ -11,11 +11,17 @@ export const MAX_BATCH = 2000;
 export class BatchSizer {
   private msPerPoint: number | undefined;
 
-  /** `fixed`: always that size. Otherwise start at MIN_BATCH and adapt. */
+  /**
+   * `fixed`: always that size. Otherwise start at MIN_BATCH and adapt, in multiples of
+   * `align`: the length of a grid's innermost sweep entry, so that the points sharing
+   * the outer values (e.g. one Falkner–Skan m across a Pr sweep) land in one worker and
+   * its cached momentum solution is not solved again by another.
+   */
   constructor(
     private readonly points: number,
     private readonly workers: number,
     private readonly fixed?: number,
+    private readonly align = 1,
   ) {
     if (fixed !== undefined && !(Number.isInteger(fixed) && fixed >= 1)) {
       throw new RangeError(`batch size must be a whole number ≥ 1, got ${fixed}`);
@@ -24,11 +30,16 @@ export class BatchSizer {
 
   next(): number {
     if (this.fixed !== undefined) return this.fixed;
-    if (this.msPerPoint === undefined) return MIN_BATCH;
+    if (this.msPerPoint === undefined) return this.aligned(MIN_BATCH);
     const ideal = Math.round(TARGET_BATCH_MS / Math.max(this.msPerPoint, 1e-6));
     // At least four batches per worker, so the tail of the sweep is shared evenly.
     const share = Math.ceil(this.points / (this.workers * 4));
-    return Math.max(MIN_BATCH, Math.min(MAX_BATCH, ideal, share));
+    return this.aligned(Math.max(MIN_BATCH, Math.min(MAX_BATCH, ideal, share)));
+  }
+
+  private aligned(n: number): number {
+    if (this.align <= 1 || this.align > MAX_BATCH) return n;
+    return Math.max(this.align, Math.round(n / this.align) * this.align);
   }
 
   /** Feeds back a finished batch's compute time (smoothed). */

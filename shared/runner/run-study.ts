@@ -8,7 +8,7 @@ import pLimit from 'p-limit';
 import { getMethod, methodsFor } from '../physics/catalogue.js';
 import { compileSolver, type SolvePlan } from '../physics/engine.js';
 import { InputError } from '../physics/types.js';
-import { countPoints, loadStudyFile, parseStudy, pointAt, type LoadedStudy } from '../study/index.js';
+import { countPoints, entryLength, loadStudyFile, parseStudy, pointAt, type LoadedStudy } from '../study/index.js';
 import {
   claimRunForResume,
   closeStore,
@@ -223,6 +223,13 @@ async function execute(
  * returns. Stops cutting on `stop`, on `cancel` (which also drops batches in flight) or
  * at the first failed batch; resolves with that batch's error, if any.
  */
+/** Points that share every sweep value but the last: the grid's innermost run. */
+function innermostLength(sweep: PreparedStudy['loaded']['study']['sweep']): number {
+  const entries = Object.values(sweep.over);
+  if (sweep.design !== 'grid' || entries.length < 2) return 1;
+  return entryLength(entries[entries.length - 1]);
+}
+
 async function computeAndWrite(
   store: Store,
   runId: number,
@@ -237,7 +244,7 @@ async function computeAndWrite(
   const writer = createBatchWriter(store, runId, methodIds);
   const { inputs, sweep } = prepared.loaded.study;
   const pool = createPool(workers, { sweep: { inputs, sweep }, plan: prepared.plan, methodIds });
-  const sizer = new BatchSizer(todo.length, workers, options.batchSize);
+  const sizer = new BatchSizer(todo.length, workers, options.batchSize, innermostLength(sweep));
   const inFlight = options.inFlight ?? workers * 2;
   const limit = pLimit(inFlight);
   let failure: unknown;

@@ -68,7 +68,7 @@ inputs:
   Re: 1.0e5
 sweep:
   over:
-    m: {from: 0, to: 3, count: 240}
+    m: {from: 0, to: 3, count: 1200}
     Pr: [0.01, 0.7, 7, 100, 1000]
 `;
 
@@ -76,7 +76,7 @@ export async function benchWorkers(ctx: BenchContext) {
   const file = ctx.study('bench-wedge-workers', WORKER_STUDY);
   const one = await timeAsync(() => runStudyFile(file, { db: join(ctx.dir, 'w1.db'), workers: 1 }));
   const two = await timeAsync(() => runStudyFile(file, { db: join(ctx.dir, 'w2.db'), workers: 2 }));
-  console.log(`similarity sweep, 240 m × 5 Pr (each m a new momentum solve):`);
+  console.log(`similarity sweep, 1200 m × 5 Pr (each m a new momentum solve):`);
   console.log(`  1 worker:  ${fmt(one.seconds)} s`);
   console.log(`  2 workers: ${fmt(two.seconds)} s`);
   console.log(`  speed-up 2 vs 1 workers: ${fmt(one.seconds / two.seconds)}× (goal ≥ 1.7)`);
