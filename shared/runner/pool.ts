@@ -17,11 +17,21 @@ export function workerFile(): string {
 export type SweepPool = Piscina<BatchTask, ComputedBatch>;
 
 export function createPool(workers: number, data: WorkerData): SweepPool {
-  return new Piscina<BatchTask, ComputedBatch>({
+  const pool = new Piscina<BatchTask, ComputedBatch>({
     filename: workerFile(),
     minThreads: workers,
     maxThreads: workers,
     idleTimeout: 60_000,
     workerData: data,
   });
+  // A batch cancelled by a second Ctrl-C may still finish in its worker; piscina then
+  // emits 'error' ("Unexpected message from Worker") for a task it no longer tracks.
+  // Dropping that result is the point of cancelling, so it is not an error here; without
+  // a listener the EventEmitter would throw it and crash the process.
+  pool.on('error', (e: Error) => {
+    if (!String(e?.message).startsWith('Unexpected message from Worker')) {
+      process.stderr.write(`filmsweep: worker pool: ${e?.message ?? String(e)}\n`);
+    }
+  });
+  return pool;
 }
