@@ -1,0 +1,100 @@
+// The API's shapes (see the API contract). Run and method data reuse the shared types.
+// (shared/export/types.ts is not imported: it pulls Node's Buffer and the whole engine into the types.)
+export type { MethodInfo, InputSpec, OutputSpec, ValidityRange } from '../../../shared/physics/types.js';
+
+export type Role = 'viewer' | 'researcher' | 'lead';
+export const ROLES: readonly Role[] = ['viewer', 'researcher', 'lead'];
+
+export interface User {
+  email: string;
+  role: Role;
+  name: string;
+}
+
+export type RunStatus = 'queued' | 'running' | 'done' | 'failed' | 'interrupted';
+
+export interface MethodVersion {
+  id: string;
+  version: number;
+}
+
+/** The store's run (shared/db RunInfo) plus what the API adds. */
+export interface RunInfo {
+  id: number;
+  study: string;
+  study_version: number;
+  title: string | null;
+  configuration: string;
+  status: RunStatus;
+  started_at: string | null;
+  finished_at: string | null;
+  git_commit: string | null;
+  host: string;
+  workers: number;
+  points_total: number;
+  points_done: number;
+  results_count: number;
+  flagged_count: number;
+  methods: MethodVersion[];
+  yaml_hash: string;
+  reference: boolean;
+  started_by: string | null;
+}
+
+export interface MethodSummary {
+  method: string;
+  version: number;
+  points: number;
+  flagged_points: number;
+  nu_name: 'Nu' | 'Nu_x' | null;
+  nu_min: number | null;
+  nu_max: number | null;
+}
+
+export interface Diagnostic {
+  file: string;
+  line: number;
+  column: number;
+  message: string;
+}
+
+export interface ResultRowDto {
+  id: number;
+  point: number;
+  method: string;
+  inputs: Record<string, number | string | boolean>;
+  outputs: Record<string, number>;
+  flags: string[];
+}
+
+export interface ResultsPage {
+  total: number;
+  page: number;
+  pageSize: number;
+  rows: ResultRowDto[];
+}
+
+export interface ChartSeries {
+  name: string;
+  method: string;
+  points: [number, number, 0 | 1][];
+}
+
+export interface ChartData {
+  x: string;
+  y: string;
+  total: number;
+  downsampled: boolean;
+  series: ChartSeries[];
+  uncertainty: Record<string, number>;
+  measured?: { name: string; points: [number, number][]; mad: Record<string, number> };
+}
+
+export interface CompareRow {
+  method: string;
+  inputs: Record<string, number | string | boolean>;
+  a: number | null;
+  b: number | null;
+  rel_diff: number | null;
+}
+

@@ -1,0 +1,133 @@
+// One run: what ran, progress while it runs, the summary per method, the chart and
+// the results table (both follow the same filters), and the exports.
+import { useMemo, useState } from 'react';
+import { Link, useParams } from 'react-router-dom';
+import { createColumnHelper } from '@tanstack/react-table';
+import { CAUTION } from '../../../shared/export/caution.js';
+import { useCatalogue } from '../api/methods.js';
+import { useMeasurements } from '../api/measurements.js';
+import { useRun, useSetReference } from '../api/runs.js';
+import { useSession } from '../api/session.js';
+import { useStudies } from '../api/studies.js';
+import type { MethodSummary } from '../api/types.js';
+import { DataTable } from '../components/DataTable.js';
+import { ExportLinks } from '../components/ExportLinks.js';
+import { ResultFilters, type FilterState } from '../components/ResultFilters.js';
+import { ResultsTable } from '../components/ResultsTable.js';
+import { RunChart } from '../components/RunChart.js';
+import { RunProgress, StatusBadge } from '../components/StatusBadge.js';
+import { ErrorNote, Loading } from '../components/States.js';
+import { formatDuration, formatNumber, formatTime } from '../lib/format.js';
+import { defaultResultQuery, type ResultQuery } from '../lib/result-query.js';
+import { can } from '../lib/roles.js';
+
+const col = createColumnHelper<MethodSummary & { title?: string; uncertainty?: number }>();
+
+function Fact({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div className="min-w-0">
+      <dt className="text-xs text-ink-600">{label}</dt>
+      <dd className="truncate text-sm" title={typeof children === 'string' ? children : undefined}>{children}</dd>
+    </div>
+  );
+}
+
+export function RunPage() {
+  const id = Number(useParams().id);
+  const run = useRun(id);
+  const session = useSession();
+  const catalogue = useCatalogue();
+  const setReference = useSetReference(id);
+  const [query, setQuery] = useState<ResultQuery>(defaultResultQuery);
+  const studies = useStudies(run.data?.run.study ?? '');
+  const studyId = studies.data?.studies.find((s) => s.name === run.data?.run.study)?.id;
+  const measurements = useMeasurements(studyId);
+
+  const summaryColumns = useMemo(
+    () => [
+      col.accessor('method', { header: 'Method', cell: (c) => <span><span className="font-mono text-xs">{c.getValue()}</span> <span className="text-ink-600">{c.row.original.title}</span></span> }),
+      col.accessor('version', { header: 'v', meta: { numeric: true } }),
+      col.accessor('points', { header: 'Points', meta: { numeric: true } }),
+      col.accessor('flagged_points', {
+        header: 'Flagged',
+        meta: { numeric: true },
+        cell: (c) => <span className={c.getValue() ? 'text-copper-700' : ''}>{c.getValue()}{c.row.original.points ? ` (${formatNumber((100 * c.getValue()) / c.row.original.points, 3)} %)` : ''}</span>,
+      }),
+      col.accessor((s) => s.nu_min, { id: 'nu', header: 'Nusselt range', meta: { numeric: true }, cell: (c) => (c.row.original.nu_name ? `${c.row.original.nu_name} ${formatNumber(c.row.original.nu_min)} … ${formatNumber(c.row.original.nu_max)}` : '—') }),
+      col.accessor('uncertainty', { header: 'Stated uncertainty', meta: { numeric: true }, cell: (c) => (c.getValue() !== undefined ? `±${formatNumber(c.getValue()! * 100, 3)} %` : '—') }),
+    ],
+    [],
+  );
+
+  if (run.isPending) return <Loading what="Loading the run" />;
+  if (run.isError) return <ErrorNote error={run.error} title="The run could not be loaded" />;
+  const { run: info, summary, error, columns } = run.data;
+  const live = info.status === 'running' || info.status === 'queued';
+  const described = summary.map((s) => {
+    const m = catalogue.data?.methods.find((x) => x.configuration === info.configuration && x.id === s.method);
+    return { ...s, title: m?.title, uncertainty: m?.uncertainty.fraction };
+  });
+  const methodIds = summary.length ? summary.map((s) => s.method) : info.methods.map((m) => m.id);
+  const filters: FilterState = { methods: query.methods, flagged: query.flagged, filters: query.filters };
+
+  return (
+    <div className="space-y-5">
+      <div className="flex flex-wrap items-start gap-4">
+        <div>
+          <p className="text-sm text-ink-600">
+            <Link className="link" to="/studies">Studies</Link> / {studyId ? <Link className="link" to={`/studies/${studyId}`}>{info.study}</Link> : info.study} / run #{info.id}
+          </p>
+          <h1 className="flex items-center gap-3 text-2xl font-semibold">
+            Run #{info.id} <StatusBadge status={info.status} />
+            {info.reference && <span className="rounded bg-copper-100 px-2 py-0.5 text-sm font-medium text-copper-700">reference run</span>}
+          </h1>
+          <p className="text-sm text-ink-600">{info.title ?? info.study} · study version v{info.study_version} · {info.configuration}</p>
+        </div>
+        <div className="ml-auto flex flex-col items-end gap-2">
+          <ExportLinks runId={info.id} />
+          {can(session.data?.user.role, 'reference') && (
+            <button type="button" className="btn btn-small" disabled={setReference.isPending} onClick={() => setReference.mutate(!info.reference)}>
+              {info.reference ? 'Unmark as reference' : 'Mark as reference for memos'}
+            </button>
+          )}
+          {setReference.isError && <ErrorNote error={setReference.error} />}
+        </div>
+      </div>
+
+      <section className="card" aria-label="Run facts">
+        <dl className="grid grid-cols-2 gap-3 md:grid-cols-4 xl:grid-cols-8">
+          <Fact label="Progress">{live ? <RunProgress run={info} /> : `${info.points_done.toLocaleString('en')} / ${info.points_total.toLocaleString('en')} points`}</Fact>
+          <Fact label="Results">{info.results_count.toLocaleString('en')} ({info.flagged_count.toLocaleString('en')} flagged)</Fact>
+          <Fact label="Started">{formatTime(info.started_at)}</Fact>
+          <Fact label="Took">{formatDuration(info.started_at, info.finished_at)}</Fact>
+          <Fact label="Started by">{info.started_by ?? '—'}</Fact>
+          <Fact label="Host · workers">{info.host} · {info.workers}</Fact>
+          <Fact label="Git commit"><span className="font-mono text-xs">{info.git_commit?.slice(0, 10) ?? '—'}</span></Fact>
+          <Fact label="Study file sha256"><span className="font-mono text-xs" title={info.yaml_hash}>{info.yaml_hash.slice(0, 12)}</span></Fact>
+        </dl>
+        {error && <div className="mt-3"><ErrorNote error={new Error(error)} title="The run failed" /></div>}
+      </section>
+
+      <section className="card" aria-labelledby="summary-heading">
+        <h2 id="summary-heading" className="card-title">Summary per method</h2>
+        <DataTable label="Summary per method" columns={summaryColumns} data={described} empty={live ? 'No results yet; the run is in progress.' : 'This run has no results.'} />
+      </section>
+
+      <section className="card" aria-labelledby="filters-heading">
+        <h2 id="filters-heading" className="card-title">Filters (table and chart)</h2>
+        <ResultFilters value={filters} methods={methodIds} columns={columns} onApply={(f) => setQuery({ ...query, ...f, page: 1 })} />
+      </section>
+
+      <section className="card" aria-labelledby="chart-heading">
+        <h2 id="chart-heading" className="card-title">Chart</h2>
+        <RunChart run={info} columns={columns} methods={query.methods} filters={query.filters} measurements={measurements.data?.measurements ?? []} live={live} />
+      </section>
+
+      <section className="card" aria-labelledby="results-heading">
+        <h2 id="results-heading" className="card-title">Results</h2>
+        <ResultsTable runId={info.id} query={query} onQuery={setQuery} columns={columns} live={live} />
+        <p className="mt-3 text-xs text-ink-600">{CAUTION}</p>
+      </section>
+    </div>
+  );
+}
