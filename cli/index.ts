@@ -17,6 +17,10 @@ import { register as registerSolve } from './commands/solve.js';
 import { register as registerSchema } from './commands/schema.js';
 import { register as registerInit } from './commands/init.js';
 import { register as registerMigrate } from './commands/migrate.js';
+import { register as registerServe } from './commands/serve.js';
+import { register as registerUser } from './commands/user.js';
+import { register as registerPush } from './commands/push.js';
+import { register as registerDemo } from './commands/demo.js';
 
 const program = new Command();
 program
@@ -27,7 +31,7 @@ program
   .exitOverride();
 
 // Order of `--help`: the sweep loop first, then browsing, then the physics tools.
-for (const register of [registerRun, registerCheck, registerResume, registerList, registerShow, registerExport, registerMethods, registerFluid, registerSolve, registerSchema, registerInit, registerMigrate]) register(program);
+for (const register of [registerRun, registerCheck, registerResume, registerList, registerShow, registerExport, registerMethods, registerFluid, registerSolve, registerSchema, registerInit, registerServe, registerUser, registerPush, registerDemo, registerMigrate]) register(program);
 
 function fail(code: number, message: string): never {
   process.stderr.write(`filmsweep: ${message}\n`);

@@ -30,3 +30,16 @@ export {
 export { createBatchWriter, type BatchWriter, type EncodedBatch } from './batch-writer.js';
 export { immediateTransaction } from './transaction.js';
 export { isBusyError } from './busy.js';
+// The dashboard's store modules (migrations/0002_dashboard.ts).
+export { ROLES, type Role } from './schema.js';
+export * from './users.js';
+export * from './sessions.js';
+export * from './tokens.js';
+export * from './invites.js';
+export * from './audit.js';
+export * from './outbox.js';
+export * from './measurements.js';
+export * from './studies.js';
+export * from './results-cache.js';
+export * from './results-query.js';
+export { newSecret, hashSecret } from './secrets.js';

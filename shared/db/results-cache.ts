@@ -108,11 +108,15 @@ export function buildResultsCache(store: Store, runId: number): ResultsCache {
   return describe(table, build.immediate());
 }
 
-/** Index name for a cache column, created on first use. */
-export function ensureCacheIndex(store: Store, cache: ResultsCache, column: string): string {
-  if (!/^(i|o)_[0-9]+$|^method_idx$/.test(column)) throw new Error(`internal: not a cache column: ${column}`);
-  const name = `${cache.table}_${column}`;
-  store.sqlite.exec(`create index if not exists ${name} on ${cache.table} (${column})`);
+/**
+ * Index on cache columns (leading column first), created on first use. The queries put
+ * every column they test into it, so SQLite answers from the index alone.
+ */
+export function ensureCacheIndex(store: Store, cache: ResultsCache, columns: string[]): string {
+  const unique = [...new Set(columns)];
+  for (const c of unique) if (!/^(i|o)_[0-9]+$|^method_idx$|^flagged$/.test(c)) throw new Error(`internal: not a cache column: ${c}`);
+  const name = `${cache.table}_x_${unique.join('_')}`;
+  store.sqlite.exec(`create index if not exists ${name} on ${cache.table} (${unique.join(', ')})`);
   return name;
 }
 

@@ -1,0 +1,60 @@
+// `filmsweep demo`: what `npm start` runs — the demo studies into the database, one demo
+// account per role (passwords printed once, for local use only), then the dashboard.
+import { randomBytes } from 'node:crypto';
+import { readdirSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { Command } from 'commander';
+import { closeStore, listRuns, openStore, resolveDbPath } from '../../shared/db/index.js';
+import { ROLES } from '../../shared/db/schema.js';
+import { createUser, listUsers } from '../../shared/db/users.js';
+import { prepareStudy, runStudy } from '../../shared/runner/index.js';
+import { loadStudyFile } from '../../shared/study/index.js';
+import { DEFAULT_HOST, DEFAULT_PORT, startServer } from '../../server/index.js';
+import { parseWholeNumber } from './run.js';
+
+const studiesDir = fileURLToPath(new URL('../../../studies/', import.meta.url));
+// Invented accounts on a reserved domain (RFC 2606): no real person or company.
+const demoEmail = (role: string) => `${role}@fernbrook.example`;
+
+export function register(program: Command) {
+  program
+    .command('demo')
+    .description('run the demo studies, create one demo account per role (printed once), and serve the dashboard in development mode')
+    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('-p, --port <port>', 'port to listen on', parseWholeNumber, DEFAULT_PORT)
+    .action(async (opts: { db?: string; port: number }) => {
+      const db = resolveDbPath(opts.db);
+      const files = readdirSync(studiesDir).filter((f) => f.endsWith('.yaml')).sort().map((f) => join(studiesDir, f));
+      const store = await openStore(db);
+      try {
+        const done = new Set((await listRuns(store)).filter((r) => r.status === 'done').map((r) => r.study));
+        for (const file of files) {
+          const prepared = prepareStudy(loadStudyFile(file));
+          if (done.has(prepared.loaded.study.name)) continue;
+          const outcome = await runStudy(store, prepared, { workers: 2 });
+          process.stderr.write(`demo: ran ${prepared.loaded.study.name} (run ${outcome.id}, ${outcome.results} results)\n`);
+        }
+        if ((await listUsers(store)).length === 0) {
+          const lines = ['demo accounts (local use only; shown once, not stored in clear):'];
+          for (const role of ROLES) {
+            const password = randomBytes(9).toString('base64url');
+            await createUser(store, { email: demoEmail(role), role, password, name: `Demo ${role}` });
+            lines.push(`  ${role.padEnd(10)} ${demoEmail(role).padEnd(28)} ${password}`);
+          }
+          process.stdout.write(`${lines.join('\n')}\n`);
+        } else {
+          process.stdout.write('accounts exist already (add one with `filmsweep user add EMAIL --role R`)\n');
+        }
+      } finally {
+        await closeStore(store);
+      }
+      const server = await startServer({ db, port: opts.port, host: DEFAULT_HOST, dev: true });
+      process.stdout.write(`dashboard: ${server.url}  (database ${resolve(db)}; Ctrl-C stops)\n`);
+      await new Promise<void>((done) => {
+        const stop = () => void server.close().then(done, done);
+        process.once('SIGINT', stop);
+        process.once('SIGTERM', stop);
+      });
+    });
+}

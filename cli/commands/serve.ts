@@ -1,0 +1,50 @@
+// `filmsweep serve [--port P] [--host H] [--db FILE] [--dev]`: the dashboard and its API.
+import { InvalidArgumentError, type Command } from 'commander';
+import { resolveDbPath } from '../../shared/db/index.js';
+import { DEFAULT_HOST, DEFAULT_PORT, startServer } from '../../server/index.js';
+import { parseWholeNumber } from './run.js';
+
+function parsePort(raw: string): number {
+  const n = Number(raw);
+  if (!/^\s*\d+\s*$/.test(raw) || n < 0 || n > 65535) throw new InvalidArgumentError('expected a port number 0–65535');
+  return n;
+}
+
+export function register(program: Command) {
+  program
+    .command('serve')
+    .description('serve the dashboard (the built web app) and its JSON API under /api')
+    .option('-p, --port <port>', `port to listen on (0 picks a free one)`, parsePort, DEFAULT_PORT)
+    .option('-H, --host <host>', 'address to listen on; 0.0.0.0 for every interface (put an HTTPS proxy in front)', DEFAULT_HOST)
+    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--dev', 'development mode: leads can read the local mail outbox at /api/outbox (also when NODE_ENV is not "production")')
+    .option('--trust-proxy <hops>', 'behind a reverse proxy: trust this many hops of X-Forwarded-* (HTTPS detection, client address)', parseWholeNumber)
+    .option('--public-url <url>', 'base of the links in e-mails (default: the address the request came to)')
+    .option('-w, --workers <n>', 'worker threads per uploaded study run (default 2)', parseWholeNumber)
+    .option('--max-points <n>', 'refuse uploaded studies with more points than this (default 1,000,000)', parseWholeNumber)
+    .action(
+      async (opts: { port: number; host: string; db?: string; dev?: boolean; trustProxy?: number; publicUrl?: string; workers?: number; maxPoints?: number }) => {
+        const server = await startServer({
+          db: resolveDbPath(opts.db),
+          port: opts.port,
+          host: opts.host,
+          dev: opts.dev ? true : undefined,
+          trustProxy: opts.trustProxy,
+          publicUrl: opts.publicUrl,
+          workers: opts.workers,
+          maxPoints: opts.maxPoints,
+        });
+        process.stderr.write(`filmsweep: dashboard at ${server.url} (database ${resolveDbPath(opts.db)}); Ctrl-C stops\n`);
+        await new Promise<void>((resolve) => {
+          const stop = () => {
+            process.off('SIGINT', stop);
+            process.off('SIGTERM', stop);
+            process.stderr.write('filmsweep: stopping (runs in progress end interrupted; `filmsweep resume` finishes them)\n');
+            server.close().then(resolve, resolve);
+          };
+          process.on('SIGINT', stop);
+          process.on('SIGTERM', stop);
+        });
+      },
+    );
+}

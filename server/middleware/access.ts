@@ -1,0 +1,34 @@
+// Enforces server/access.ts for every /api request: unknown route 404 (405 for a known
+// path), anonymous 401, role too low 403, and the CSRF check for cookie-authenticated
+// state-changing requests (header X-CSRF-Token must equal the session's token).
+import { timingSafeEqual } from 'node:crypto';
+import type { NextFunction, Request, Response } from 'express';
+import { findRoute, pathKnown, roleAtLeast } from '../access.js';
+import { HttpError } from '../http-error.js';
+import '../types.js';
+
+const STATE_CHANGING = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
+
+function same(a: string, b: string): boolean {
+  const x = Buffer.from(a);
+  const y = Buffer.from(b);
+  return x.length === y.length && timingSafeEqual(x, y);
+}
+
+export function enforceAccess(req: Request, _res: Response, next: NextFunction) {
+  const path = req.baseUrl + req.path;
+  const route = findRoute(req.method, path);
+  if (!route) throw pathKnown(path) ? new HttpError(405, `${req.method} is not allowed on ${path}`) : new HttpError(404, `no API route ${req.method} ${path}`);
+  req.route_access = route;
+  if (route.access === 'public') return next();
+  const auth = req.auth;
+  if (!auth) throw new HttpError(401, 'sign in first');
+  if (route.access !== 'signed-in' && !roleAtLeast(auth.user.role, route.access)) {
+    throw new HttpError(403, `this needs the ${route.access} role; you are ${auth.user.role}`);
+  }
+  if (STATE_CHANGING.has(req.method) && auth.via === 'session' && !route.csrfExempt) {
+    const sent = req.get('x-csrf-token');
+    if (!sent || !same(sent, auth.session!.csrfToken)) throw new HttpError(403, 'missing or wrong X-CSRF-Token header');
+  }
+  next();
+}

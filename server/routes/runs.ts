@@ -1,0 +1,151 @@
+// Runs: list, one run, its results (paged, sorted, filtered), chart data, exports, the
+// reference mark, and runs pushed from elsewhere (`filmsweep push`, CI).
+import { Router } from 'express';
+import { z } from 'zod';
+import { recordAudit } from '../../shared/db/audit.js';
+import { getRunDetails, getRunRows, getRunSummary, RUN_STATUSES } from '../../shared/db/index.js';
+import { getMeasurement } from '../../shared/db/measurements.js';
+import { NAME_PATTERN } from '../../shared/db/results-cache.js';
+import { chartData, getRunColumns, MAX_PAGE_SIZE, queryResults, type RangeFilter } from '../../shared/db/results-query.js';
+import { getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
+import { exportFormats, exportRun } from '../../shared/export/index.js';
+import type { AppContext } from '../context.js';
+import { HttpError, notFound } from '../http-error.js';
+import { parse } from '../middleware/validate.js';
+import { measuredOverlay } from '../overlay.js';
+import { pushRun, pushSchema } from '../push.js';
+import { idParams } from './users.js';
+
+const name = z.string().regex(NAME_PATTERN, 'expected an input or output name');
+const list = z
+  .string()
+  .max(2000)
+  .transform((s) => s.split(',').map((m) => m.trim()).filter(Boolean));
+const number = z
+  .string()
+  .trim()
+  .transform((s, c) => {
+    if (s === '') return undefined;
+    const v = Number(s);
+    if (!Number.isFinite(v)) {
+      c.addIssue({ code: 'custom', message: `'${s}' is not a number` });
+      return z.NEVER;
+    }
+    return v;
+  });
+const filter = z
+  .string()
+  .max(300)
+  .transform((s, c): RangeFilter => {
+    const m = /^([A-Za-z_][A-Za-z0-9_]*):([^:]*):([^:]*)$/.exec(s);
+    if (!m) {
+      c.addIssue({ code: 'custom', message: `filter '${s}': expected NAME:min:max (min or max may be empty)` });
+      return z.NEVER;
+    }
+    const [min, max] = [m[2], m[3]].map((v) => number.safeParse(v));
+    if (!min.success || !max.success) {
+      c.addIssue({ code: 'custom', message: `filter '${s}': min and max must be numbers` });
+      return z.NEVER;
+    }
+    return { name: m[1], min: min.data, max: max.data };
+  });
+const filters = z.union([filter.transform((f) => [f]), z.array(filter).max(20)]).optional();
+
+const resultsQuery = z
+  .object({
+    page: z.coerce.number().int().min(1).max(1_000_000).default(1),
+    pageSize: z.coerce.number().int().min(1).max(MAX_PAGE_SIZE).default(50),
+    sort: z.union([z.literal('point'), z.literal('method'), name]).optional(),
+    order: z.enum(['asc', 'desc']).default('asc'),
+    method: list.optional(),
+    flagged: z.enum(['any', 'yes', 'no']).default('any'),
+    filter: filters,
+  })
+  .strict();
+
+const chartQuery = z
+  .object({
+    x: name,
+    y: name,
+    series: z.union([z.literal('method'), name]).default('method'),
+    method: list.optional(),
+    filter: filters,
+    max: z.coerce.number().int().min(10).max(20_000).default(2000),
+    measurement: z.coerce.number().int().positive().optional(),
+  })
+  .strict();
+
+export function runsRouter(ctx: AppContext): Router {
+  const r = Router();
+  r.get('/', async (req, res) => {
+    const q = parse(z.object({ study: z.coerce.number().int().positive().optional(), status: z.enum(RUN_STATUSES).optional() }).strict(), req.query, 'query');
+    let study: string | undefined;
+    if (q.study !== undefined) {
+      study = await getStudyName(ctx.store, q.study);
+      if (!study) throw notFound(`study ${q.study}`);
+    }
+    res.json({ runs: await listDashboardRuns(ctx.store, { study, status: q.status }) });
+  });
+
+  r.post('/push', async (req, res) => {
+    const body = parse(pushSchema, req.body, 'body');
+    const user = req.auth!.user;
+    const run = await pushRun(ctx.store, body, user.id);
+    await recordAudit(ctx.store, { user, action: 'run-pushed', detail: { run: run.id, study: run.study, rows: body.rows.length, from_host: body.run.host }, ip: req.ip });
+    res.status(201).json({ run });
+  });
+
+  r.get('/:id', async (req, res) => {
+    const { id } = parse(idParams, req.params, 'params');
+    parse(z.object({}).strict(), req.query, 'query');
+    const run = await getDashboardRun(ctx.store, id);
+    if (!run) throw notFound(`run ${id}`);
+    const details = await getRunDetails(ctx.store, id);
+    res.json({ run, summary: await getRunSummary(ctx.store, id), error: details?.error ?? null, columns: await getRunColumns(ctx.store, id) });
+  });
+
+  r.get('/:id/results', async (req, res) => {
+    const { id } = parse(idParams, req.params, 'params');
+    const q = parse(resultsQuery, req.query, 'query');
+    if (!(await getDashboardRun(ctx.store, id))) throw notFound(`run ${id}`);
+    res.json(
+      await queryResults(ctx.store, id, { page: q.page, pageSize: q.pageSize, sort: q.sort, order: q.order, methods: q.method, flagged: q.flagged, filters: q.filter }),
+    );
+  });
+
+  r.get('/:id/chart', async (req, res) => {
+    const { id } = parse(idParams, req.params, 'params');
+    const q = parse(chartQuery, req.query, 'query');
+    const run = await getDashboardRun(ctx.store, id);
+    if (!run) throw notFound(`run ${id}`);
+    const chart = await chartData(ctx.store, id, { x: q.x, y: q.y, series: q.series, methods: q.method, filters: q.filter, max: q.max });
+    if (q.measurement === undefined) return res.json(chart);
+    const m = await getMeasurement(ctx.store, q.measurement);
+    if (!m || (await getStudyName(ctx.store, m.measurement.study_id)) !== run.study) throw notFound(`measurement ${q.measurement} of study ${run.study}`);
+    res.json({ ...chart, measured: await measuredOverlay(ctx.store, run, { name: m.measurement.name, rows: m.rows }, q.x, q.y) });
+  });
+
+  r.get('/:id/export', async (req, res) => {
+    const { id } = parse(idParams, req.params, 'params');
+    const { format } = parse(z.object({ format: z.enum(exportFormats as [string, ...string[]]).default('csv') }).strict(), req.query, 'query');
+    if (!(await getDashboardRun(ctx.store, id))) throw notFound(`run ${id}`);
+    const data = await getRunRows(ctx.store, id);
+    const file = await exportRun(data, format as (typeof exportFormats)[number]);
+    await recordAudit(ctx.store, { user: req.auth!.user, action: 'export', detail: { run: id, format }, ip: req.ip });
+    res.setHeader('Content-Type', file.mediaType);
+    res.attachment(`run-${id}.${file.extension}`);
+    res.send(file.body);
+  });
+
+  r.post('/:id/reference', async (req, res) => {
+    const { id } = parse(idParams, req.params, 'params');
+    const { reference } = parse(z.object({ reference: z.boolean() }).strict(), req.body, 'body');
+    if (!(await getDashboardRun(ctx.store, id))) throw notFound(`run ${id}`);
+    await setRunReference(ctx.store, id, reference);
+    await recordAudit(ctx.store, { user: req.auth!.user, action: 'reference', detail: { run: id, reference }, ip: req.ip });
+    res.json({ run: await getDashboardRun(ctx.store, id) });
+  });
+  return r;
+}
+
+export { HttpError };
