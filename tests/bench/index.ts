@@ -8,6 +8,7 @@ import { join } from 'node:path';
 import { benchSimilarity, benchSimilaritySweep } from './similarity.js';
 import { benchCorrelations } from './correlations.js';
 import { benchEndToEnd, benchWorkers } from './runner.js';
+import { benchApi } from './api.js';
 import type { BenchContext } from './timing.js';
 
 const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
@@ -16,6 +17,7 @@ const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
   sweep: benchSimilaritySweep,
   e2e: benchEndToEnd,
   workers: benchWorkers,
+  api: benchApi,
 };
 
 async function main() {
