@@ -5,28 +5,10 @@ import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import type { MethodVersion } from './runs.js';
 import type { RunStatus } from './schema.js';
 import type { Store } from './store.js';
+import type { RunInfo } from '../export/run-info.js';
 
-/** A run as exports and the API show it. Timestamps are ISO-8601. */
-export interface RunInfo {
-  id: number;
-  study: string;
-  /** 1, 2, 3 … : which content of the study file this run used. */
-  study_version: number;
-  title: string | null;
-  configuration: string;
-  status: RunStatus;
-  started_at: string | null;
-  finished_at: string | null;
-  git_commit: string | null;
-  host: string;
-  workers: number;
-  points_total: number;
-  points_done: number;
-  results_count: number;
-  flagged_count: number;
-  methods: MethodVersion[];
-  yaml_hash: string;
-}
+/** A run as exports and the API show it (one definition, shared with the web app). */
+export type { RunInfo };
 
 /** What `show` adds to RunInfo: the process that ran it and why it failed. */
 export interface RunDetails extends RunInfo {

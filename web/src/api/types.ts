@@ -11,32 +11,11 @@ export interface User {
   name: string;
 }
 
-export type RunStatus = 'queued' | 'running' | 'done' | 'failed' | 'interrupted';
+import type { RunInfo as StoreRunInfo } from '../../../shared/export/run-info.js';
+export type { MethodVersion, RunStatus } from '../../../shared/export/run-info.js';
 
-export interface MethodVersion {
-  id: string;
-  version: number;
-}
-
-/** The store's run (shared/db RunInfo) plus what the API adds. */
-export interface RunInfo {
-  id: number;
-  study: string;
-  study_version: number;
-  title: string | null;
-  configuration: string;
-  status: RunStatus;
-  started_at: string | null;
-  finished_at: string | null;
-  git_commit: string | null;
-  host: string;
-  workers: number;
-  points_total: number;
-  points_done: number;
-  results_count: number;
-  flagged_count: number;
-  methods: MethodVersion[];
-  yaml_hash: string;
+/** The store's run (shared/export/run-info.ts) plus what the API adds. */
+export interface RunInfo extends StoreRunInfo {
   reference: boolean;
   started_by: string | null;
 }
