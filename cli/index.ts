@@ -21,6 +21,7 @@ import { register as registerServe } from './commands/serve.js';
 import { register as registerUser } from './commands/user.js';
 import { register as registerPush } from './commands/push.js';
 import { register as registerDemo } from './commands/demo.js';
+import { register as registerWorker } from './commands/worker.js';
 
 const program = new Command();
 program
@@ -31,7 +32,7 @@ program
   .exitOverride();
 
 // Order of `--help`: the sweep loop first, then browsing, then the physics tools.
-for (const register of [registerRun, registerCheck, registerResume, registerList, registerShow, registerExport, registerMethods, registerFluid, registerSolve, registerSchema, registerInit, registerServe, registerUser, registerPush, registerDemo, registerMigrate]) register(program);
+for (const register of [registerRun, registerCheck, registerResume, registerWorker, registerList, registerShow, registerExport, registerMethods, registerFluid, registerSolve, registerSchema, registerInit, registerServe, registerUser, registerPush, registerDemo, registerMigrate]) register(program);
 
 function fail(code: number, message: string): never {
   process.stderr.write(`filmsweep: ${message}\n`);

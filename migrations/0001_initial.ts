@@ -15,20 +15,22 @@
 // filters and sorts by any name through `->>`, scanning only the run's rows through the
 // (run_id, …) indexes. A later migration can still add a value table if runs grow far
 // beyond 1e6 results. JSONB keeps each number's decimal text, so json() gives back exactly
-// what JSON.stringify wrote (checked on 2e5 random doubles).
+// what JSON.stringify wrote (checked on 2e5 random doubles). On PostgreSQL the same
+// columns are `json`, which keeps the text as written (shared/db/dialect.ts).
 import { sql, type Kysely } from 'kysely';
+import { ddl } from '../shared/db/dialect.js';
 
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('studies')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('name', 'text', (c) => c.notNull().unique())
     .addColumn('created_at', 'text', (c) => c.notNull())
     .execute();
 
   await db.schema
     .createTable('study_versions')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('study_id', 'integer', (c) => c.notNull().references('studies.id').onDelete('cascade'))
     // 1, 2, 3 … within the study, in the order the contents were first run.
     .addColumn('version', 'integer', (c) => c.notNull())
@@ -44,7 +46,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('runs')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('study_version_id', 'integer', (c) => c.notNull().references('study_versions.id').onDelete('cascade'))
     .addColumn('status', 'text', (c) => c.notNull())
     .addColumn('started_at', 'text')
@@ -67,24 +69,23 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   // One row per computed point; inputs as JSONB. Clustered on (run_id, idx) so a run's
   // points read in sweep order and resume finds the missing indices from the key alone.
-  await db.schema
-    .createTable('points')
+  await ddl
+    .clustered(db, db.schema.createTable('points'))
     .addColumn('run_id', 'integer', (c) => c.notNull().references('runs.id').onDelete('cascade'))
     .addColumn('idx', 'integer', (c) => c.notNull())
-    .addColumn('inputs', 'blob', (c) => c.notNull())
+    .addColumn('inputs', ddl.jsonType(db), (c) => c.notNull())
     .addPrimaryKeyConstraint('points_pk', ['run_id', 'idx'])
-    .modifyEnd(sql`without rowid`)
     .execute();
 
   await db.schema
     .createTable('results')
-    .addColumn('id', 'integer', (c) => c.primaryKey())
+    .addColumn('id', ddl.rowIdType(db), ddl.rowId(db))
     .addColumn('run_id', 'integer', (c) => c.notNull().references('runs.id').onDelete('cascade'))
     .addColumn('point_idx', 'integer', (c) => c.notNull())
     // Position of the method in runs.methods; fixes the row order within a point.
     .addColumn('method_idx', 'integer', (c) => c.notNull())
     .addColumn('method', 'text', (c) => c.notNull())
-    .addColumn('outputs', 'blob', (c) => c.notNull())
+    .addColumn('outputs', ddl.jsonType(db), (c) => c.notNull())
     .addColumn('flags', 'text', (c) => c.notNull())
     .addColumn('flagged', 'integer', (c) => c.notNull())
     .execute();

@@ -20,11 +20,12 @@
 // users are disabled, never deleted, so runs.started_by needs no foreign key (SQLite's
 // DROP COLUMN, used by down(), refuses a column that has one).
 import { sql, type Kysely } from 'kysely';
+import { ddl } from '../shared/db/dialect.js';
 
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema
     .createTable('users')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('email', 'text', (c) => c.notNull().unique())
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('role', 'text', (c) => c.notNull())
@@ -46,7 +47,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('api_tokens')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('user_id', 'integer', (c) => c.notNull().references('users.id').onDelete('cascade'))
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('token_hash', 'text', (c) => c.notNull().unique())
@@ -57,7 +58,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('invites')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('email', 'text', (c) => c.notNull())
     .addColumn('role', 'text', (c) => c.notNull())
     .addColumn('token_hash', 'text', (c) => c.notNull().unique())
@@ -70,7 +71,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('password_resets')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('user_id', 'integer', (c) => c.notNull().references('users.id').onDelete('cascade'))
     .addColumn('token_hash', 'text', (c) => c.notNull().unique())
     .addColumn('created_at', 'text', (c) => c.notNull())
@@ -80,7 +81,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('measurements')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('study_id', 'integer', (c) => c.notNull().references('studies.id').onDelete('cascade'))
     .addColumn('name', 'text', (c) => c.notNull())
     .addColumn('columns', 'text', (c) => c.notNull())
@@ -93,7 +94,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('mail_outbox')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('to_address', 'text', (c) => c.notNull())
     .addColumn('subject', 'text', (c) => c.notNull())
     .addColumn('text', 'text', (c) => c.notNull())
@@ -103,7 +104,7 @@ export async function up(db: Kysely<any>): Promise<void> {
 
   await db.schema
     .createTable('audit_log')
-    .addColumn('id', 'integer', (c) => c.primaryKey().autoIncrement())
+    .addColumn('id', 'integer', ddl.autoId(db))
     .addColumn('at', 'text', (c) => c.notNull())
     .addColumn('user_id', 'integer')
     .addColumn('user_email', 'text')

@@ -40,7 +40,7 @@ export class BackgroundRuns {
         onStart: ({ runId: id }) => {
           runId = id;
           // An uploaded file has no folder: no git commit. Written synchronously, between batches.
-          setRunStartedBy(this.store, id, user.id, null);
+          setRunStartedBy(this.store, id, user.id, null).catch(this.log);
           this.running.set(id, { stop, done });
           resolveId(id);
         },
@@ -63,7 +63,7 @@ export class BackgroundRuns {
   private async finished(outcome: RunOutcome, userId: number, linkBase: string) {
     // Build the results cache now rather than on someone's first query of a large run.
     try {
-      ensureResultsCache(this.store, outcome.id);
+      await ensureResultsCache(this.store, outcome.id);
     } catch (e) {
       this.log(e);
     }

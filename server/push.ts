@@ -1,5 +1,7 @@
 // A run sent from elsewhere (`filmsweep push`, CI): the study text (its hash checked), the
-// run's facts and its rows, stored as a new run on this server in one transaction.
+// run's facts and its rows, stored as a new run on this server: the rows in batches
+// through the batch writer, then the run's final status; a push that fails half-way
+// removes its run again.
 import { z } from 'zod';
 import { createBatchWriter, createRun, type Store } from '../shared/db/index.js';
 import { getDashboardRun, type DashboardRun } from '../shared/db/studies.js';
@@ -71,25 +73,24 @@ export async function pushRun(store: Store, body: PushBody, userId: number): Pro
   });
   const writer = createBatchWriter(store, runId, methodIds);
   const BATCH = 2000;
-  const write = store.sqlite.transaction(() => {
+  try {
     for (let start = 0; start < points; start += BATCH) {
       const idx = Array.from({ length: Math.min(BATCH, points - start) }, (_, i) => start + i);
-      writer.write({
+      await writer.write({
         points: idx,
         inputs: idx.map((p) => JSON.stringify(body.rows[p * M].inputs)),
         outputs: idx.flatMap((p) => body.rows.slice(p * M, p * M + M).map((r) => JSON.stringify(r.outputs))),
         flags: idx.flatMap((p) => body.rows.slice(p * M, p * M + M).map((r) => JSON.stringify(r.flags))),
       });
     }
-    store.sqlite
-      .prepare('update runs set status = ?, started_at = ?, finished_at = ?, pid = null, started_by = ? where id = ?')
-      .run(body.run.status, body.run.started_at, body.run.finished_at ?? new Date().toISOString(), userId, runId);
-  });
-  try {
-    write.immediate();
+    await store.db
+      .updateTable('runs')
+      .set({ status: body.run.status, started_at: body.run.started_at, finished_at: body.run.finished_at ?? new Date().toISOString(), pid: null, started_by: userId })
+      .where('id', '=', runId)
+      .execute();
   } catch (e) {
-    // Leave no half-pushed run behind.
-    store.sqlite.prepare('delete from runs where id = ?').run(runId);
+    // Leave no half-pushed run behind (its points and results go with it: on delete cascade).
+    await store.db.deleteFrom('runs').where('id', '=', runId).execute();
     throw e;
   }
   return (await getDashboardRun(store, runId))!;

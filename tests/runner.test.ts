@@ -1,6 +1,7 @@
 // The sweep runner in-process: worker pool (the compiled worker from dist/, so `npm test`
 // builds first), batching, stored rows against the engine called directly, stop/resume,
-// failures and the refusals of resume.
+// failures and the refusals of resume; on SQLite and, when FILMSWEEP_TEST_PG_URL is set,
+// on PostgreSQL.
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -10,18 +11,24 @@ import { compileSolver, type ResultRow } from '../shared/physics/engine.js';
 import { InputError } from '../shared/physics/types.js';
 import { BatchSizer, MAX_BATCH, MIN_BATCH, prepareStudy, resumeRun, runStudy, type PreparedStudy } from '../shared/runner/index.js';
 import { expandPoints, loadStudyFile } from '../shared/study/index.js';
+import { STORE_KINDS, createTestDatabase, type TestDatabase } from './helpers/stores.js';
 
 let dir: string;
 let store: Store;
+let database: TestDatabase;
 
-beforeEach(async () => {
+beforeEach(() => {
   dir = mkdtempSync(join(tmpdir(), 'filmsweep-runner-'));
-  store = await openStore(join(dir, 'runs.db'));
 });
-afterEach(async () => {
-  await closeStore(store);
+afterEach(() => {
   rmSync(dir, { recursive: true, force: true });
 });
+
+/** One value of the first row, as a number or a string. */
+async function valueOf(query: string, ...params: unknown[]): Promise<unknown> {
+  const [row] = await store.dialect.all<Record<string, unknown>>(query, params);
+  return Object.values(row)[0];
+}
 
 // A dimensionless pipe sweep: 30 × 20 = 600 points, two correlations each; the low-Re
 // corner is outside Dittus–Boelter's range, so some results carry flags.
@@ -48,90 +55,100 @@ function reference(p: PreparedStudy): ResultRow[] {
   return expandPoints(p.loaded.study).flatMap((point) => solve(point));
 }
 
-describe('runStudy', () => {
-  it('stores exactly the rows the engine computes, one per point and method, for any worker count and batch size', async () => {
-    const p = prepare(PIPE);
-    const expected = reference(p);
-    expect(expected.length).toBe(600 * 2);
-    expect(expected.some((r) => r.flags.length > 0)).toBe(true);
-    const outcomes = [];
-    for (const [workers, batchSize] of [[1, undefined], [2, 7], [3, 64], [2, undefined]] as const) {
-      const o = await runStudy(store, p, { workers, batchSize });
-      outcomes.push(o);
-      expect(o).toMatchObject({ status: 'done', points_total: 600, points_done: 600, results: 1200 });
-      const { run, rows } = await getRunRows(store, o.id);
-      expect(rows).toEqual(expected);
-      expect(run).toMatchObject({ status: 'done', workers, points_done: 600, results_count: 1200 });
-      expect(run.flagged_count).toBe(expected.filter((r) => r.flags.length > 0).length);
-    }
-    expect(new Set(outcomes.map((o) => o.flagged)).size).toBe(1);
+describe.each(STORE_KINDS)('on %s', (kind) => {
+  beforeEach(async () => {
+    database = await createTestDatabase(kind, 'runs');
+    store = await openStore(database.location);
+  });
+  afterEach(async () => {
+    await closeStore(store);
+    await database.drop();
   });
 
-  it('reports progress up to the total and the run in the database as it goes', async () => {
-    const p = prepare(PIPE);
-    const seen: number[] = [];
-    let started: number | undefined;
-    const o = await runStudy(store, p, {
-      workers: 2,
-      batchSize: 50,
-      onStart: (info) => (started = info.runId),
-      onProgress: (q) => seen.push(q.done),
+  describe('runStudy', () => {
+    it('stores exactly the rows the engine computes, one per point and method, for any worker count and batch size', async () => {
+      const p = prepare(PIPE);
+      const expected = reference(p);
+      expect(expected.length).toBe(600 * 2);
+      expect(expected.some((r) => r.flags.length > 0)).toBe(true);
+      const outcomes = [];
+      for (const [workers, batchSize] of [[1, undefined], [2, 7], [3, 64], [2, undefined]] as const) {
+        const o = await runStudy(store, p, { workers, batchSize });
+        outcomes.push(o);
+        expect(o).toMatchObject({ status: 'done', points_total: 600, points_done: 600, results: 1200 });
+        const { run, rows } = await getRunRows(store, o.id);
+        expect(rows).toEqual(expected);
+        expect(run).toMatchObject({ status: 'done', workers, points_done: 600, results_count: 1200 });
+        expect(run.flagged_count).toBe(expected.filter((r) => r.flags.length > 0).length);
+      }
+      expect(new Set(outcomes.map((o) => o.flagged)).size).toBe(1);
     });
-    expect(started).toBe(o.id);
-    expect(seen.length).toBe(12);
-    expect(seen.at(-1)).toBe(600);
-    expect([...seen].sort((a, b) => a - b)).toEqual(seen);
-  });
 
-  it('stops scheduling on the stop signal, ends interrupted, and resume completes the same rows', async () => {
-    const p = prepare(PIPE);
-    const stop = new AbortController();
-    let batches = 0;
-    const o = await runStudy(store, p, {
-      workers: 2,
-      batchSize: 25,
-      stop: stop.signal,
-      onProgress: () => {
-        if (++batches === 3) stop.abort();
-      },
+    it('reports progress up to the total and the run in the database as it goes', async () => {
+      const p = prepare(PIPE);
+      const seen: number[] = [];
+      let started: number | undefined;
+      const o = await runStudy(store, p, {
+        workers: 2,
+        batchSize: 50,
+        onStart: (info) => (started = info.runId),
+        onProgress: (q) => seen.push(q.done),
+      });
+      expect(started).toBe(o.id);
+      expect(seen.length).toBe(12);
+      expect(seen.at(-1)).toBe(600);
+      expect([...seen].sort((a, b) => a - b)).toEqual(seen);
     });
-    expect(o.status).toBe('interrupted');
-    expect(o.points_done).toBeGreaterThanOrEqual(75);
-    expect(o.points_done).toBeLessThan(600);
-    expect((await getRun(store, o.id))!.status).toBe('interrupted');
 
-    const seen: number[] = [];
-    const r = await resumeRun(store, o.id, { workers: 1, onStart: (info) => seen.push(info.done) });
-    expect(seen).toEqual([o.points_done]);
-    expect(r).toMatchObject({ id: o.id, status: 'done', points_done: 600, results: 1200 });
-    const { rows } = await getRunRows(store, o.id);
-    expect(rows).toEqual(reference(p));
-  });
+    it('stops scheduling on the stop signal, ends interrupted, and resume completes the same rows', async () => {
+      const p = prepare(PIPE);
+      const stop = new AbortController();
+      let batches = 0;
+      const o = await runStudy(store, p, {
+        workers: 2,
+        batchSize: 25,
+        stop: stop.signal,
+        onProgress: () => {
+          if (++batches === 3) stop.abort();
+        },
+      });
+      expect(o.status).toBe('interrupted');
+      expect(o.points_done).toBeGreaterThanOrEqual(75);
+      expect(o.points_done).toBeLessThan(600);
+      expect((await getRun(store, o.id))!.status).toBe('interrupted');
 
-  it('drops batches in flight on cancel and still leaves a resumable run', async () => {
-    const p = prepare(PIPE);
-    const stop = new AbortController();
-    const cancel = new AbortController();
-    const o = await runStudy(store, p, {
-      workers: 2,
-      batchSize: 10,
-      stop: stop.signal,
-      cancel: cancel.signal,
-      onProgress: (q) => {
-        if (q.done >= 100) {
-          stop.abort();
-          cancel.abort();
-        }
-      },
+      const seen: number[] = [];
+      const r = await resumeRun(store, o.id, { workers: 1, onStart: (info) => seen.push(info.done) });
+      expect(seen).toEqual([o.points_done]);
+      expect(r).toMatchObject({ id: o.id, status: 'done', points_done: 600, results: 1200 });
+      const { rows } = await getRunRows(store, o.id);
+      expect(rows).toEqual(reference(p));
     });
-    expect(o.status).toBe('interrupted');
-    const r = await resumeRun(store, o.id, { workers: 2 });
-    expect(r.status).toBe('done');
-    expect((await getRunRows(store, o.id)).rows).toEqual(reference(p));
-  });
 
-  it('marks the run failed with the error when a point cannot be computed, keeping committed batches', async () => {
-    const p = prepare(`name: runner-fails
+    it('drops batches in flight on cancel and still leaves a resumable run', async () => {
+      const p = prepare(PIPE);
+      const stop = new AbortController();
+      const cancel = new AbortController();
+      const o = await runStudy(store, p, {
+        workers: 2,
+        batchSize: 10,
+        stop: stop.signal,
+        cancel: cancel.signal,
+        onProgress: (q) => {
+          if (q.done >= 100) {
+            stop.abort();
+            cancel.abort();
+          }
+        },
+      });
+      expect(o.status).toBe('interrupted');
+      const r = await resumeRun(store, o.id, { workers: 2 });
+      expect(r.status).toBe('done');
+      expect((await getRunRows(store, o.id)).rows).toEqual(reference(p));
+    });
+
+    it('marks the run failed with the error when a point cannot be computed, keeping committed batches', async () => {
+      const p = prepare(`name: runner-fails
 configuration: pipe
 methods: [dittus-boelter]
 fluid: water
@@ -142,22 +159,22 @@ sweep:
     velocity: [1, 2, 3]
     fluid_temperature: [300 K, 310 K]
 `);
-    // After validation, make every second point impossible (a temperature that is not a
-    // number is an input error in the engine), as a point prepareStudy cannot foresee.
-    p.loaded.study.sweep.over.fluid_temperature = { kind: 'list', values: [300, Number.NaN] };
-    const o = await runStudy(store, p, { workers: 1, batchSize: 1, inFlight: 1 });
-    expect(o.status).toBe('failed');
-    expect(o.error).toMatch(/fluid_temperature/);
-    const run = await getRun(store, o.id);
-    expect(run!.status).toBe('failed');
-    expect(run!.points_done).toBe(1);
-    expect(store.sqlite.prepare('select error from runs where id = ?').pluck().get(o.id)).toMatch(/finite number/);
-  });
+      // After validation, make every second point impossible (a temperature that is not a
+      // number is an input error in the engine), as a point prepareStudy cannot foresee.
+      p.loaded.study.sweep.over.fluid_temperature = { kind: 'list', values: [300, Number.NaN] };
+      const o = await runStudy(store, p, { workers: 1, batchSize: 1, inFlight: 1 });
+      expect(o.status).toBe('failed');
+      expect(o.error).toMatch(/fluid_temperature/);
+      const run = await getRun(store, o.id);
+      expect(run!.status).toBe('failed');
+      expect(run!.points_done).toBe(1);
+      expect(await valueOf('select error from runs where id = ?', o.id)).toMatch(/finite number/);
+    });
 
-  it('rejects a study whose first point the engine cannot use before anything is written', () => {
-    // Dimensional inputs without a fluid: the engine cannot derive Re.
-    expect(() =>
-      prepare(`name: runner-no-fluid
+    it('rejects a study whose first point the engine cannot use before anything is written', async () => {
+      // Dimensional inputs without a fluid: the engine cannot derive Re.
+      expect(() =>
+        prepare(`name: runner-no-fluid
 configuration: pipe
 methods: [dittus-boelter]
 inputs:
@@ -167,62 +184,57 @@ sweep:
   over:
     velocity: [1, 2]
 `),
-    ).toThrow();
-    expect(store.sqlite.prepare('select count(*) from runs').pluck().get()).toBe(0);
-  });
-});
-
-describe('resumeRun', () => {
-  it('refuses a done run, a run whose process is alive, and an unknown run', async () => {
-    const p = prepare(PIPE);
-    const o = await runStudy(store, p, { workers: 1 });
-    await expect(resumeRun(store, o.id)).rejects.toThrow(/already done/);
-    // Pretend this very process is running it: its pid is alive on this host.
-    store.sqlite.prepare("update runs set status = 'running', pid = ? where id = ?").run(process.pid, o.id);
-    await expect(resumeRun(store, o.id)).rejects.toThrow(/still running/);
-    await expect(resumeRun(store, 9999)).rejects.toThrow(InputError);
+      ).toThrow();
+      expect(Number(await valueOf('select count(*) as n from runs'))).toBe(0);
+    });
   });
 
-  it('takes over a running run whose process is dead and computes only the missing points', async () => {
-    const p = prepare(PIPE);
-    const o = await runStudy(store, p, { workers: 2, batchSize: 40 });
-    // Simulate a kill -9 after some batches: drop the later points' rows, keep status running.
-    const keep = new Set([0, 1, 2, 40, 41, 599]);
-    store.sqlite.exec('begin');
-    for (let i = 0; i < 600; i++) {
-      if (keep.has(i)) continue;
-      store.sqlite.prepare('delete from results where run_id = ? and point_idx = ?').run(o.id, i);
-      store.sqlite.prepare('delete from points where run_id = ? and idx = ?').run(o.id, i);
-    }
-    store.sqlite.exec('commit');
-    const before = store.sqlite
-      .prepare('select id from results where run_id = ? order by id')
-      .pluck()
-      .all(o.id);
-    store.sqlite.prepare("update runs set status = 'running', pid = 2147483646, finished_at = null where id = ?").run(o.id);
-    const seen: number[] = [];
-    const r = await resumeRun(store, o.id, { workers: 2, onStart: (info) => seen.push(info.done) });
-    expect(seen).toEqual([keep.size]);
-    expect(r).toMatchObject({ status: 'done', points_done: 600, results: 1200 });
-    // The six kept points were not rewritten: their result ids are unchanged.
-    const after = store.sqlite
-      .prepare('select id from results where run_id = ? and point_idx in (0, 1, 2, 40, 41, 599) order by id')
-      .pluck()
-      .all(o.id);
-    expect(after).toEqual(before);
-    expect((await getRunRows(store, o.id)).rows).toEqual(reference(p));
-  });
+  describe('resumeRun', () => {
+    it('refuses a done run, a run whose process is alive, and an unknown run', async () => {
+      const p = prepare(PIPE);
+      const o = await runStudy(store, p, { workers: 1 });
+      await expect(resumeRun(store, o.id)).rejects.toThrow(/already done/);
+      // Pretend this very process is running it: its pid is alive on this host.
+      await store.dialect.run("update runs set status = 'running', pid = ? where id = ?", [process.pid, o.id]);
+      await expect(resumeRun(store, o.id)).rejects.toThrow(/still running/);
+      await expect(resumeRun(store, 9999)).rejects.toThrow(InputError);
+    });
 
-  it('refuses to mix method versions: the stored run used another version of a method', async () => {
-    const p = prepare(PIPE);
-    const stop = new AbortController();
-    stop.abort();
-    const o = await runStudy(store, p, { workers: 1, stop: stop.signal });
-    expect(o).toMatchObject({ status: 'interrupted', points_done: 0 });
-    store.sqlite
-      .prepare('update runs set methods = ? where id = ?')
-      .run(JSON.stringify([{ id: 'gnielinski', version: 0 }, { id: 'dittus-boelter', version: 1 }]), o.id);
-    await expect(resumeRun(store, o.id)).rejects.toThrow(/gnielinski v0/);
+    it('takes over a running run whose process is dead and computes only the missing points', async () => {
+      const p = prepare(PIPE);
+      const o = await runStudy(store, p, { workers: 2, batchSize: 40 });
+      // Simulate a kill -9 after some batches: drop the later points' rows, keep status running.
+      const keep = new Set([0, 1, 2, 40, 41, 599]);
+      const kept = [...keep].join(', ');
+      await store.dialect.atomic([
+        { sql: `delete from results where run_id = ? and point_idx not in (${kept})`, params: [o.id] },
+        { sql: `delete from points where run_id = ? and idx not in (${kept})`, params: [o.id] },
+      ]);
+      const ids = async (query: string) => (await store.dialect.all<{ id: unknown }>(query, [o.id])).map((r) => Number(r.id));
+      const before = await ids('select id from results where run_id = ? order by id');
+      await store.dialect.run("update runs set status = 'running', pid = 2147483646, finished_at = null where id = ?", [o.id]);
+      const seen: number[] = [];
+      const r = await resumeRun(store, o.id, { workers: 2, onStart: (info) => seen.push(info.done) });
+      expect(seen).toEqual([keep.size]);
+      expect(r).toMatchObject({ status: 'done', points_done: 600, results: 1200 });
+      // The six kept points were not rewritten: their result ids are unchanged.
+      const after = await ids('select id from results where run_id = ? and point_idx in (0, 1, 2, 40, 41, 599) order by id');
+      expect(after).toEqual(before);
+      expect((await getRunRows(store, o.id)).rows).toEqual(reference(p));
+    });
+
+    it('refuses to mix method versions: the stored run used another version of a method', async () => {
+      const p = prepare(PIPE);
+      const stop = new AbortController();
+      stop.abort();
+      const o = await runStudy(store, p, { workers: 1, stop: stop.signal });
+      expect(o).toMatchObject({ status: 'interrupted', points_done: 0 });
+      await store.dialect.run('update runs set methods = ? where id = ?', [
+        JSON.stringify([{ id: 'gnielinski', version: 0 }, { id: 'dittus-boelter', version: 1 }]),
+        o.id,
+      ]);
+      await expect(resumeRun(store, o.id)).rejects.toThrow(/gnielinski v0/);
+    });
   });
 });
 

@@ -2,7 +2,8 @@
 // too large, wrong type, too many points), the background run and its mail, results paging
 // / sorting / filtering checked against getRunRows (both off the JSONB columns and off the
 // results cache), chart downsampling, measurements and their overlay MAD, comparison,
-// reference marks, exports, audit, and `filmsweep push` end to end with the compiled CLI.
+// reference marks, exports, audit, and `filmsweep push` end to end with the compiled CLI;
+// on SQLite and, when FILMSWEEP_TEST_PG_URL is set, on PostgreSQL.
 import { execFile } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
@@ -16,7 +17,16 @@ import { solvePoint, type ResultRow } from '../shared/physics/engine.js';
 import type { Inputs } from '../shared/physics/types.js';
 import { cliPath, repoRoot } from './helpers/cli.js';
 import { Client, startTestServer, waitForRun, type TestServer } from './helpers/server.js';
+import { STORE_KINDS, createTestDatabase, type TestDatabase } from './helpers/stores.js';
+import type { Store } from '../shared/db/index.js';
 
+async function countOf(store: Store, query: string, ...params: unknown[]): Promise<number> {
+  const [row] = await store.dialect.all<{ n: unknown }>(query, params);
+  return Number(row.n);
+}
+
+describe.each(STORE_KINDS)('on %s', (kind) => {
+let database: TestDatabase;
 let s: TestServer;
 let researcher: Client;
 let viewer: Client;
@@ -48,7 +58,8 @@ let runA: number;
 let studyA: number;
 
 beforeAll(async () => {
-  s = await startTestServer({ maxPoints: 50_000 });
+  database = await createTestDatabase(kind, 'dashboard');
+  s = await startTestServer({ maxPoints: 50_000 }, database.location);
   researcher = await s.signIn(s.emails.researcher);
   viewer = await s.signIn(s.emails.viewer);
   lead = await s.signIn(s.emails.lead);
@@ -59,7 +70,8 @@ beforeAll(async () => {
   await waitForRun(viewer, runA);
 }, 60_000);
 afterAll(async () => {
-  await s.close();
+  await s?.close();
+  await database?.drop();
 });
 
 describe('uploading studies', () => {
@@ -96,7 +108,7 @@ describe('uploading studies', () => {
   });
 
   it('refuses an invalid study with 400 and its diagnostics (file, line, column), running nothing', async () => {
-    const before = s.store.sqlite.prepare('select count(*) from runs').pluck().get();
+    const before = await countOf(s.store, 'select count(*) as n from runs');
     const bad = await upload('name: broken\nconfiguration: pipe\nmethods: [gnielinski, no-such-method]\nsweep:\n  over:\n    Re: [1.0e4]\n', 'broken.yaml');
     expect(bad.status).toBe(400);
     const d = bad.body.error.details.diagnostics;
@@ -105,7 +117,7 @@ describe('uploading studies', () => {
     expect(unknown).toMatchObject({ file: 'broken.yaml', line: 3 });
     expect(unknown.column).toBeGreaterThan(1);
     expect(d.every((x: any) => x.file === 'broken.yaml' && x.line >= 1 && x.column >= 1)).toBe(true);
-    expect(s.store.sqlite.prepare('select count(*) from runs').pluck().get()).toBe(before);
+    expect(await countOf(s.store, 'select count(*) as n from runs')).toBe(before);
   });
 
   it('refuses sweeps over the server\'s point limit before running', async () => {
@@ -173,9 +185,9 @@ describe('results: paging, sorting, filtering', () => {
 
   for (const viaCache of [false, true]) {
     it(`matches getRunRows ${viaCache ? 'through the results cache' : 'straight off the JSONB columns'}`, async () => {
-      if (viaCache) buildResultsCache(s.store, runA);
-      else dropResultsCache(s.store, runA);
-      expect(Boolean(currentCache(s.store, runA))).toBe(viaCache);
+      if (viaCache) await buildResultsCache(s.store, runA);
+      else await dropResultsCache(s.store, runA);
+      expect(Boolean(await currentCache(s.store, runA))).toBe(viaCache);
       const rows = await expectedRows(runA);
       expect(rows.some((r) => r.flags.length > 0)).toBe(true);
       for (const c of cases) {
@@ -264,7 +276,7 @@ sweep:
     expect(one.rows).toEqual([{ values: { Re: 12000, Nu: 90 } }, { values: { Re: 30000, Nu: 190 } }, { values: { Re: 80000, Nu: 420 } }]);
 
     const chart = await viewer.json('GET', `/api/runs/${up.body.run.id}/chart?x=Re&y=Nu&measurement=${list[0].id}`);
-    expect(chart.status).toBe(200);
+    expect(chart.status, JSON.stringify(chart.body)).toBe(200);
     expect(chart.body.measured.points).toEqual([[12000, 90], [30000, 190], [80000, 420]]);
     for (const method of ['gnielinski', 'dittus-boelter']) {
       // The method solved at each measured Re (engine's one-point solve, as `filmsweep solve`).
@@ -297,7 +309,7 @@ sweep:
 describe('push, compare, reference and exports', () => {
   it('compares a run with a pushed copy whose one value was changed', async () => {
     const { rows, run } = await getRunRows(s.store, runA);
-    const yaml = s.store.sqlite.prepare('select v.yaml from runs r join study_versions v on v.id = r.study_version_id where r.id = ?').pluck().get(runA) as string;
+    const [{ yaml }] = await s.store.dialect.all<{ yaml: string }>('select v.yaml from runs r join study_versions v on v.id = r.study_version_id where r.id = ?', [runA]);
     const changed = rows.map((r) => ({ method: r.method, inputs: r.inputs, outputs: { ...r.outputs }, flags: r.flags }));
     changed[7].outputs.Nu *= 1.1;
     const { token } = (await researcher.json('POST', '/api/tokens', { json: { name: 'test' } })).body;
@@ -421,7 +433,8 @@ catch (e) { process.stderr.write('filmsweep: ' + e.message + '\\n'); process.exi
 
 describe('shutdown', () => {
   it('stops a background run when the server closes: batches in flight commit, the run ends interrupted, the pool is gone', async () => {
-    const own = await startTestServer({ maxPoints: 2_000_000 });
+    const ownDb = await createTestDatabase(kind, 'shutdown');
+    const own = await startTestServer({ maxPoints: 2_000_000 }, ownDb.location);
     const c = await own.signIn(own.emails.researcher);
     const form = yamlForm(PIPE('long-run', '{from: 0.7, to: 100, count: 1000}', 1000));
     const up = await c.json('POST', '/api/studies', { form });
@@ -434,9 +447,11 @@ describe('shutdown', () => {
     const after = await getRun(store, id);
     expect(after!.status).toBe('interrupted');
     expect(after!.points_done).toBeLessThan(1_000_000);
-    expect(store.sqlite.prepare('select count(*) from points where run_id = ?').pluck().get(id)).toBe(after!.points_done);
+    expect(await countOf(store, 'select count(*) as n from points where run_id = ?', id)).toBe(after!.points_done);
     // A new upload is refused while shutting down.
     expect((await c.json('POST', '/api/studies', { form: yamlForm(PIPE('late')) })).status).toBe(503);
     await own.close();
+    await ownDb.drop();
   }, 30_000);
+});
 });

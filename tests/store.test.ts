@@ -1,8 +1,8 @@
-// The SQLite store on its own: schema and migrations, run bookkeeping, the batch writer's
-// all-or-nothing transactions, and the queries the CLI and the dashboard read with.
-import { existsSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
+// The store on its own, on SQLite and (when FILMSWEEP_TEST_PG_URL is set) PostgreSQL:
+// schema and migrations, run bookkeeping, the batch writer's all-or-nothing and idempotent
+// transactions, and the queries the CLI and the dashboard read with.
+import { existsSync } from 'node:fs';
+import { dirname, join, resolve } from 'node:path';
 import { Migrator, NO_MIGRATIONS } from 'kysely';
 import { afterEach, beforeEach, describe, expect, it } from 'vitest';
 import { migrations } from '../migrations/index.js';
@@ -24,18 +24,7 @@ import {
   type Store,
 } from '../shared/db/index.js';
 import { InputError } from '../shared/physics/types.js';
-
-let dir: string;
-let store: Store;
-
-beforeEach(async () => {
-  dir = mkdtempSync(join(tmpdir(), 'filmsweep-store-'));
-  store = await openStore(join(dir, 'test.db'));
-});
-afterEach(async () => {
-  await closeStore(store);
-  rmSync(dir, { recursive: true, force: true });
-});
+import { STORE_KINDS, createTestDatabase, type TestDatabase } from './helpers/stores.js';
 
 function spec(over: Partial<NewRunSpec> = {}): NewRunSpec {
   return {
@@ -69,40 +58,6 @@ function batch(points: number[]): EncodedBatch {
   };
 }
 
-describe('openStore', () => {
-  it('creates the schema in WAL mode and applies nothing when reopened', async () => {
-    expect(store.migrated).toEqual(Object.keys(migrations).sort());
-    expect(store.migrated[0]).toBe('0001_initial');
-    expect(store.sqlite.pragma('journal_mode', { simple: true })).toBe('wal');
-    expect(Number(store.sqlite.pragma('busy_timeout', { simple: true }))).toBeGreaterThan(0);
-    const tables = store.sqlite.prepare("select name from sqlite_master where type = 'table'").pluck().all();
-    expect(tables).toEqual(expect.arrayContaining(['points', 'results', 'runs', 'studies', 'study_versions']));
-    const again = await openStore(store.path);
-    expect(again.migrated).toEqual([]);
-    await closeStore(again);
-  });
-
-  it('refuses to create a missing file when asked not to', async () => {
-    const missing = join(dir, 'absent.db');
-    await expect(openStore(missing, { create: false })).rejects.toThrow(InputError);
-    expect(existsSync(missing)).toBe(false);
-  });
-
-  it('migrates all the way down and up again', async () => {
-    const migrator = new Migrator({ db: store.db, provider: { getMigrations: async () => migrations } });
-    const down = await migrator.migrateTo(NO_MIGRATIONS);
-    expect(down.error).toBeUndefined();
-    const left = store.sqlite
-      .prepare("select name from sqlite_master where type = 'table' and name not like 'kysely_%' and name not like 'sqlite_%'")
-      .pluck()
-      .all();
-    expect(left).toEqual([]);
-    const up = await migrator.migrateToLatest();
-    expect(up.error).toBeUndefined();
-    expect(up.results?.map((r) => r.migrationName)).toEqual(Object.keys(migrations).sort());
-  });
-});
-
 describe('resolveDbPath', () => {
   it('prefers --db, then FILMSWEEP_DB, then ./filmsweep.db', () => {
     const saved = process.env.FILMSWEEP_DB;
@@ -112,6 +67,10 @@ describe('resolveDbPath', () => {
       expect(resolveDbPath()).toBe(resolve('from-env.db'));
       delete process.env.FILMSWEEP_DB;
       expect(resolveDbPath()).toBe(resolve('filmsweep.db'));
+      // A PostgreSQL URL is kept as it is, from either place.
+      expect(resolveDbPath('postgres://u:p@db.example:5432/sweeps')).toBe('postgres://u:p@db.example:5432/sweeps');
+      process.env.FILMSWEEP_DB = 'postgresql://db.example/sweeps';
+      expect(resolveDbPath()).toBe('postgresql://db.example/sweeps');
     } finally {
       if (saved === undefined) delete process.env.FILMSWEEP_DB;
       else process.env.FILMSWEEP_DB = saved;
@@ -119,174 +78,275 @@ describe('resolveDbPath', () => {
   });
 });
 
-describe('runs and study versions', () => {
-  it('stores one version per distinct study text', async () => {
-    const a = await createRun(store, spec());
-    const b = await createRun(store, spec());
-    const c = await createRun(store, spec({ yaml: 'name: tiny\n# edited\n', hash: 'b'.repeat(64) }));
-    const [ra, rb, rc] = await Promise.all([a, b, c].map((id) => getRun(store, id)));
-    expect(ra!.study_version).toBe(1);
-    expect(rb!.study_version).toBe(1);
-    expect(rc!.study_version).toBe(2);
-    expect(rc!.yaml_hash).toBe('b'.repeat(64));
-    expect(store.sqlite.prepare('select count(*) from studies').pluck().get()).toBe(1);
+describe.each(STORE_KINDS)('the store on %s', (kind) => {
+  let database: TestDatabase;
+  let store: Store;
+
+  beforeEach(async () => {
+    database = await createTestDatabase(kind);
+    store = await openStore(database.location);
+  });
+  afterEach(async () => {
+    await closeStore(store);
+    await database.drop();
   });
 
-  it('gives RunInfo its documented shape', async () => {
-    const id = await createRun(store, spec({ gitCommit: 'c'.repeat(40) }));
-    const run = await getRun(store, id);
-    expect(Object.keys(run!).sort()).toEqual(
-      [
-        'id', 'study', 'study_version', 'title', 'configuration', 'status', 'started_at', 'finished_at', 'git_commit',
-        'host', 'workers', 'points_total', 'points_done', 'results_count', 'flagged_count', 'methods', 'yaml_hash',
-      ].sort(),
-    );
-    expect(run).toMatchObject({
-      study: 'tiny',
-      title: 'Tiny study',
-      configuration: 'pipe',
-      status: 'running',
-      git_commit: 'c'.repeat(40),
-      finished_at: null,
-      methods: [
-        { id: 'alpha', version: 1 },
-        { id: 'beta', version: 3 },
-      ],
-    });
-    expect(new Date(run!.started_at!).toISOString()).toBe(run!.started_at);
-    await finishRun(store, id, 'done');
-    const done = await getRun(store, id);
-    expect(done!.status).toBe('done');
-    expect(Date.parse(done!.finished_at!)).toBeGreaterThanOrEqual(Date.parse(done!.started_at!));
-  });
+  const count = async (query: string, ...params: unknown[]) => {
+    const [row] = await store.dialect.all<{ n: unknown }>(query, params);
+    return Number(row.n);
+  };
 
-  it('refuses a status outside the five of the design', async () => {
-    const id = await createRun(store, spec());
-    expect(() => store.sqlite.prepare("update runs set status = 'paused' where id = ?").run(id)).toThrow(/CHECK/);
-  });
+  const tables = async (): Promise<string[]> =>
+    (
+      await store.dialect.all<{ name: string }>(
+        kind === 'sqlite'
+          ? "select name from sqlite_master where type = 'table'"
+          : "select table_name as name from information_schema.tables where table_schema = current_schema()",
+      )
+    ).map((t) => t.name);
 
-  it('resolves latest and ids, and rejects unknown references as bad input', async () => {
-    await expect(resolveRunRef(store, 'latest')).rejects.toThrow(InputError);
-    const first = await createRun(store, spec());
-    const second = await createRun(store, spec());
-    expect((await resolveRunRef(store, 'latest')).id).toBe(second);
-    expect((await resolveRunRef(store, String(first))).id).toBe(first);
-    await expect(resolveRunRef(store, '42')).rejects.toThrow(/no run 42/);
-    await expect(resolveRunRef(store, 'abc')).rejects.toThrow(InputError);
-    expect((await listRuns(store)).map((r) => r.id)).toEqual([second, first]);
-  });
-});
-
-describe('batch writer and row queries', () => {
-  it('round-trips rows exactly, in point order then method order, whatever the write order', async () => {
-    const id = await createRun(store, spec());
-    const writer = createBatchWriter(store, id, ['alpha', 'beta']);
-    writer.write(batch([2, 3]));
-    writer.write(batch([0, 1]));
-    const { run, rows } = await getRunRows(store, id);
-    expect(run.points_done).toBe(4);
-    expect(run.results_count).toBe(8);
-    expect(run.flagged_count).toBe(2);
-    expect(rows.map((r) => `${r.inputs.Re}/${r.method}`)).toEqual([
-      '1000/alpha', '1000/beta', '2000/alpha', '2000/beta', '3000/alpha', '3000/beta', '4000/alpha', '4000/beta',
-    ]);
-    // Doubles come back bit for bit (JSONB keeps the decimal text JSON.stringify wrote).
-    expect(rows[4].outputs).toEqual({ Nu: 12 + 1 / 3, h: 0.1 * Math.PI * 3 });
-    expect(rows[7].outputs.Nu_x).toBe(1e-7 * 4);
-    expect(rows[3].flags).toEqual(['out-of-range:Re']);
-    expect(rows[0].inputs).toEqual({ Re: 1000, Pr: 0.7, heating: true });
-  });
-
-  it('refuses a batch whose results do not cover every method of every point', async () => {
-    const id = await createRun(store, spec());
-    const short = { ...batch([0, 1]), flags: ['[]', '[]', '[]'] };
-    short.outputs = short.outputs.slice(0, 3);
-    expect(() => createBatchWriter(store, id, ['alpha', 'beta']).write(short)).toThrow(/3 results for 2 methods/);
-    expect((await getRun(store, id))!.points_done).toBe(0);
-  });
-
-  it('writes a batch entirely or not at all: a duplicate point rolls back the whole batch', async () => {
-    const id = await createRun(store, spec());
-    const writer = createBatchWriter(store, id, ['alpha', 'beta']);
-    writer.write(batch([0, 1]));
-    expect(() => writer.write(batch([2, 1]))).toThrow(/UNIQUE|PRIMARY KEY/);
-    const run = await getRun(store, id);
-    expect(run).toMatchObject({ points_done: 2, results_count: 4 });
-    expect(store.sqlite.prepare('select count(*) from results where run_id = ?').pluck().get(id)).toBe(4);
-    expect(store.sqlite.prepare('select count(*) from points where run_id = ? and idx = 2').pluck().get(id)).toBe(0);
-  });
-
-  it('enforces one result per point and method with a unique index', async () => {
-    const id = await createRun(store, spec());
-    createBatchWriter(store, id, ['alpha', 'beta']).write(batch([0]));
-    const dup = store.sqlite.prepare(
-      "insert into results (run_id, point_idx, method_idx, method, outputs, flags, flagged) values (?, 0, 1, 'beta', jsonb('{}'), '[]', 0)",
-    );
-    expect(() => dup.run(id)).toThrow(/UNIQUE/);
-  });
-
-  it('summarises per method: points, flagged points, min and max of Nu or else Nu_x', async () => {
-    const id = await createRun(store, spec());
-    createBatchWriter(store, id, ['alpha', 'beta']).write(batch([0, 1, 2, 3]));
-    const summary = await getRunSummary(store, id);
-    expect(summary).toEqual([
-      { method: 'alpha', version: 1, points: 4, flagged_points: 0, nu_name: 'Nu', nu_min: 10 + 1 / 3, nu_max: 13 + 1 / 3 },
-      { method: 'beta', version: 3, points: 4, flagged_points: 2, nu_name: 'Nu_x', nu_min: 1e-7, nu_max: 1e-7 * 4 },
-    ]);
-  });
-
-  it('lets a second connection read only committed batches while a writer works (WAL)', async () => {
-    const id = await createRun(store, spec({ pointsTotal: 400 }));
-    const reader = await openStore(store.path);
-    try {
-      const writer = createBatchWriter(store, id, ['alpha', 'beta']);
-      for (let b = 0; b < 100; b++) {
-        writer.write(batch([4 * b, 4 * b + 1, 4 * b + 2, 4 * b + 3]));
-        const snap = reader.sqlite
-          .prepare(
-            'select r.points_done, r.results_count, (select count(*) from results where run_id = r.id) n from runs r where id = ?',
-          )
-          .get(id) as { points_done: number; results_count: number; n: number };
-        expect(snap.n).toBe(snap.results_count);
-        expect(snap.results_count).toBe(2 * snap.points_done);
+  describe('openStore', () => {
+    it('creates the schema (SQLite: in WAL mode) and applies nothing when reopened', async () => {
+      expect(store.migrated).toEqual(Object.keys(migrations).sort());
+      expect(store.migrated[0]).toBe('0001_initial');
+      expect(store.kind).toBe(kind);
+      if (kind === 'sqlite') {
+        expect(store.sqlite.pragma('journal_mode', { simple: true })).toBe('wal');
+        expect(Number(store.sqlite.pragma('busy_timeout', { simple: true }))).toBeGreaterThan(0);
+      } else {
+        expect(() => store.sqlite).toThrow(/PostgreSQL/);
+        expect(store.path).not.toContain(':filmsweep@'); // the password is not shown
       }
-    } finally {
-      await closeStore(reader);
-    }
-  });
-});
+      expect(await tables()).toEqual(expect.arrayContaining(['points', 'results', 'runs', 'studies', 'study_versions']));
+      const again = await openStore(database.location);
+      expect(again.migrated).toEqual([]);
+      await closeStore(again);
+    });
 
-describe('claimRunForResume', () => {
-  const alive = () => true;
-  const dead = () => false;
-  const me = { host: 'test-host', pid: 4242, workers: 3 };
+    it.runIf(kind === 'sqlite')('refuses to create a missing file when asked not to', async () => {
+      const dir = dirname(database.location);
+      const missing = join(dir, 'absent.db');
+      await expect(openStore(missing, { create: false })).rejects.toThrow(InputError);
+      expect(existsSync(missing)).toBe(false);
+    });
 
-  it('refuses a done run and a running run whose process is alive', async () => {
-    const id = await createRun(store, spec());
-    await expect(claimRunForResume(store, id, me, alive)).rejects.toThrow(/still running/);
-    await finishRun(store, id, 'done');
-    await expect(claimRunForResume(store, id, me, dead)).rejects.toThrow(/already done/);
-    await expect(claimRunForResume(store, 999, me, dead)).rejects.toThrow(/no run 999/);
-  });
-
-  it('takes over a dead run, returns its stored points and recounts its counters from the rows', async () => {
-    const id = await createRun(store, spec());
-    createBatchWriter(store, id, ['alpha', 'beta']).write(batch([0, 3]));
-    // A kill -9 cannot leave counters out of step with the rows, but a recount is the truth anyway.
-    store.sqlite.prepare('update runs set points_done = 0, results_count = 0, flagged_count = 0 where id = ?').run(id);
-    const done = await claimRunForResume(store, id, me, dead);
-    expect([...done].sort()).toEqual([0, 3]);
-    const run = await getRun(store, id);
-    expect(run).toMatchObject({ status: 'running', points_done: 2, results_count: 4, flagged_count: 1, workers: 3 });
-    expect(store.sqlite.prepare('select pid from runs where id = ?').pluck().get(id)).toBe(4242);
+    it('migrates all the way down and up again', async () => {
+      const migrator = new Migrator({ db: store.db, provider: { getMigrations: async () => migrations } });
+      const down = await migrator.migrateTo(NO_MIGRATIONS);
+      expect(down.error).toBeUndefined();
+      expect((await tables()).filter((t) => !t.startsWith('kysely_') && !t.startsWith('sqlite_'))).toEqual([]);
+      const up = await migrator.migrateToLatest();
+      expect(up.error).toBeUndefined();
+      expect(up.results?.map((r) => r.migrationName)).toEqual(Object.keys(migrations).sort());
+    });
   });
 
-  it('resumes interrupted and failed runs whatever their pid', async () => {
-    const a = await createRun(store, spec());
-    await finishRun(store, a, 'interrupted');
-    await expect(claimRunForResume(store, a, me, alive)).resolves.toBeInstanceOf(Set);
-    const b = await createRun(store, spec());
-    await finishRun(store, b, 'failed', 'boom');
-    await expect(claimRunForResume(store, b, me, alive)).resolves.toBeInstanceOf(Set);
+  describe('runs and study versions', () => {
+    it('stores one version per distinct study text', async () => {
+      const a = await createRun(store, spec());
+      const b = await createRun(store, spec());
+      const c = await createRun(store, spec({ yaml: 'name: tiny\n# edited\n', hash: 'b'.repeat(64) }));
+      const [ra, rb, rc] = await Promise.all([a, b, c].map((id) => getRun(store, id)));
+      expect(ra!.study_version).toBe(1);
+      expect(rb!.study_version).toBe(1);
+      expect(rc!.study_version).toBe(2);
+      expect(rc!.yaml_hash).toBe('b'.repeat(64));
+      expect(await count('select count(*) as n from studies')).toBe(1);
+    });
+
+    it('gives RunInfo its documented shape', async () => {
+      const id = await createRun(store, spec({ gitCommit: 'c'.repeat(40) }));
+      const run = await getRun(store, id);
+      expect(Object.keys(run!).sort()).toEqual(
+        [
+          'id', 'study', 'study_version', 'title', 'configuration', 'status', 'started_at', 'finished_at', 'git_commit',
+          'host', 'workers', 'points_total', 'points_done', 'results_count', 'flagged_count', 'methods', 'yaml_hash',
+        ].sort(),
+      );
+      expect(run).toMatchObject({
+        study: 'tiny',
+        title: 'Tiny study',
+        configuration: 'pipe',
+        status: 'running',
+        git_commit: 'c'.repeat(40),
+        finished_at: null,
+        methods: [
+          { id: 'alpha', version: 1 },
+          { id: 'beta', version: 3 },
+        ],
+      });
+      expect(new Date(run!.started_at!).toISOString()).toBe(run!.started_at);
+      await finishRun(store, id, 'done');
+      const done = await getRun(store, id);
+      expect(done!.status).toBe('done');
+      expect(Date.parse(done!.finished_at!)).toBeGreaterThanOrEqual(Date.parse(done!.started_at!));
+    });
+
+    it('refuses a status outside the five of the design', async () => {
+      const id = await createRun(store, spec());
+      await expect(store.dialect.run("update runs set status = 'paused' where id = ?", [id])).rejects.toThrow(/CHECK|check constraint/);
+    });
+
+    it('resolves latest and ids, and rejects unknown references as bad input', async () => {
+      await expect(resolveRunRef(store, 'latest')).rejects.toThrow(InputError);
+      const first = await createRun(store, spec());
+      const second = await createRun(store, spec());
+      expect((await resolveRunRef(store, 'latest')).id).toBe(second);
+      expect((await resolveRunRef(store, String(first))).id).toBe(first);
+      await expect(resolveRunRef(store, '42')).rejects.toThrow(/no run 42/);
+      await expect(resolveRunRef(store, 'abc')).rejects.toThrow(InputError);
+      expect((await listRuns(store)).map((r) => r.id)).toEqual([second, first]);
+    });
+  });
+
+  describe('batch writer and row queries', () => {
+    it('round-trips rows exactly, in point order then method order, whatever the write order', async () => {
+      const id = await createRun(store, spec());
+      const writer = createBatchWriter(store, id, ['alpha', 'beta']);
+      await writer.write(batch([2, 3]));
+      await writer.write(batch([0, 1]));
+      const { run, rows } = await getRunRows(store, id);
+      expect(run.points_done).toBe(4);
+      expect(run.results_count).toBe(8);
+      expect(run.flagged_count).toBe(2);
+      expect(rows.map((r) => `${r.inputs.Re}/${r.method}`)).toEqual([
+        '1000/alpha', '1000/beta', '2000/alpha', '2000/beta', '3000/alpha', '3000/beta', '4000/alpha', '4000/beta',
+      ]);
+      // Doubles come back bit for bit (SQLite's JSONB and PostgreSQL's json keep the decimal
+      // text JSON.stringify wrote), and so does the key order.
+      expect(rows[4].outputs).toEqual({ Nu: 12 + 1 / 3, h: 0.1 * Math.PI * 3 });
+      expect(rows[7].outputs.Nu_x).toBe(1e-7 * 4);
+      expect(rows[3].flags).toEqual(['out-of-range:Re']);
+      expect(rows[0].inputs).toEqual({ Re: 1000, Pr: 0.7, heating: true });
+      expect(Object.keys(rows[0].inputs)).toEqual(['Re', 'Pr', 'heating']);
+      expect(JSON.stringify(rows.map((r) => r.outputs))).toBe(`[${batch([0, 1, 2, 3]).outputs.join(',')}]`);
+    });
+
+    it('refuses a batch whose results do not cover every method of every point', async () => {
+      const id = await createRun(store, spec());
+      const short = { ...batch([0, 1]), flags: ['[]', '[]', '[]'] };
+      short.outputs = short.outputs.slice(0, 3);
+      await expect(createBatchWriter(store, id, ['alpha', 'beta']).write(short)).rejects.toThrow(/3 results for 2 methods/);
+      expect((await getRun(store, id))!.points_done).toBe(0);
+    });
+
+    it('writes a batch entirely or not at all: a bad row rolls back the whole batch', async () => {
+      const id = await createRun(store, spec());
+      const writer = createBatchWriter(store, id, ['alpha', 'beta']);
+      await writer.write(batch([0, 1]));
+      const bad = batch([2, 3]);
+      bad.outputs[3] = '{"Nu_x": '; // not JSON: the database refuses the last row
+      await expect(writer.write(bad)).rejects.toThrow();
+      const run = await getRun(store, id);
+      expect(run).toMatchObject({ points_done: 2, results_count: 4, flagged_count: 1 });
+      expect(await count('select count(*) as n from results where run_id = ?', id)).toBe(4);
+      expect(await count('select count(*) as n from points where run_id = ? and idx = 2', id)).toBe(0);
+    });
+
+    it('is idempotent: a batch written again inserts nothing and leaves the counters alone', async () => {
+      const id = await createRun(store, spec());
+      const writer = createBatchWriter(store, id, ['alpha', 'beta']);
+      expect(await writer.write(batch([0, 1]))).toEqual({ points: 2, results: 4, flagged: 1 });
+      // A retried queue job: the same batch, then one overlapping a stored point.
+      expect(await writer.write(batch([0, 1]))).toEqual({ points: 0, results: 0, flagged: 0 });
+      expect(await writer.write(batch([1, 2, 3]))).toEqual({ points: 2, results: 4, flagged: 1 });
+      expect(await getRun(store, id)).toMatchObject({ points_done: 4, results_count: 8, flagged_count: 2 });
+      expect(await count('select count(*) as n from results where run_id = ?', id)).toBe(8);
+      expect((await getRunRows(store, id)).rows).toHaveLength(8);
+    });
+
+    it('counts each row once when two connections write overlapping batches at the same time', async () => {
+      const id = await createRun(store, spec({ pointsTotal: 200 }));
+      const other = await openStore(database.location);
+      try {
+        const mine = createBatchWriter(store, id, ['alpha', 'beta']);
+        const theirs = createBatchWriter(other, id, ['alpha', 'beta']);
+        const writes: Promise<unknown>[] = [];
+        for (let b = 0; b < 20; b++) {
+          const points = Array.from({ length: 10 }, (_, i) => 10 * b + i);
+          writes.push(mine.write(batch(points)), theirs.write(batch([...points].reverse())));
+        }
+        await Promise.all(writes);
+      } finally {
+        await closeStore(other);
+      }
+      expect(await getRun(store, id)).toMatchObject({ points_done: 200, results_count: 400, flagged_count: 100 });
+      expect(await count('select count(*) as n from results where run_id = ?', id)).toBe(400);
+      expect(await count('select count(*) as n from points where run_id = ?', id)).toBe(200);
+    });
+
+    it('enforces one result per point and method with a unique index', async () => {
+      const id = await createRun(store, spec());
+      await createBatchWriter(store, id, ['alpha', 'beta']).write(batch([0]));
+      const dup = `insert into results (run_id, point_idx, method_idx, method, outputs, flags, flagged)
+                   values (?, 0, 1, 'beta', ${store.dialect.jsonParam}, '[]', 0)`;
+      await expect(store.dialect.run(dup, [id, '{}'])).rejects.toThrow(/UNIQUE|duplicate key/);
+    });
+
+    it('summarises per method: points, flagged points, min and max of Nu or else Nu_x', async () => {
+      const id = await createRun(store, spec());
+      await createBatchWriter(store, id, ['alpha', 'beta']).write(batch([0, 1, 2, 3]));
+      const summary = await getRunSummary(store, id);
+      expect(summary).toEqual([
+        { method: 'alpha', version: 1, points: 4, flagged_points: 0, nu_name: 'Nu', nu_min: 10 + 1 / 3, nu_max: 13 + 1 / 3 },
+        { method: 'beta', version: 3, points: 4, flagged_points: 2, nu_name: 'Nu_x', nu_min: 1e-7, nu_max: 1e-7 * 4 },
+      ]);
+    });
+
+    it('lets a second connection read only committed batches while a writer works (SQLite: WAL)', async () => {
+      const id = await createRun(store, spec({ pointsTotal: 400 }));
+      const reader = await openStore(database.location);
+      try {
+        const writer = createBatchWriter(store, id, ['alpha', 'beta']);
+        for (let b = 0; b < 100; b++) {
+          const written = writer.write(batch([4 * b, 4 * b + 1, 4 * b + 2, 4 * b + 3]));
+          const [snap] = await reader.dialect.all<{ points_done: number; results_count: number; n: number }>(
+            'select r.points_done, r.results_count, (select count(*) from results where run_id = r.id) n from runs r where id = ?',
+            [id],
+          );
+          await written;
+          snap.n = Number(snap.n);
+          expect(snap.n).toBe(snap.results_count);
+          expect(snap.results_count).toBe(2 * snap.points_done);
+        }
+      } finally {
+        await closeStore(reader);
+      }
+    });
+  });
+
+  describe('claimRunForResume', () => {
+    const alive = () => true;
+    const dead = () => false;
+    const me = { host: 'test-host', pid: 4242, workers: 3 };
+
+    it('refuses a done run and a running run whose process is alive', async () => {
+      const id = await createRun(store, spec());
+      await expect(claimRunForResume(store, id, me, alive)).rejects.toThrow(/still running/);
+      await finishRun(store, id, 'done');
+      await expect(claimRunForResume(store, id, me, dead)).rejects.toThrow(/already done/);
+      await expect(claimRunForResume(store, 999, me, dead)).rejects.toThrow(/no run 999/);
+    });
+
+    it('takes over a dead run, returns its stored points and recounts its counters from the rows', async () => {
+      const id = await createRun(store, spec());
+      await createBatchWriter(store, id, ['alpha', 'beta']).write(batch([0, 3]));
+      // A kill -9 cannot leave counters out of step with the rows, but a recount is the truth anyway.
+      await store.dialect.run('update runs set points_done = 0, results_count = 0, flagged_count = 0 where id = ?', [id]);
+      const done = await claimRunForResume(store, id, me, dead);
+      expect([...done].sort()).toEqual([0, 3]);
+      const run = await getRun(store, id);
+      expect(run).toMatchObject({ status: 'running', points_done: 2, results_count: 4, flagged_count: 1, workers: 3 });
+      expect(await count('select pid as n from runs where id = ?', id)).toBe(4242);
+    });
+
+    it('resumes interrupted and failed runs whatever their pid', async () => {
+      const a = await createRun(store, spec());
+      await finishRun(store, a, 'interrupted');
+      await expect(claimRunForResume(store, a, me, alive)).resolves.toBeInstanceOf(Set);
+      const b = await createRun(store, spec());
+      await finishRun(store, b, 'failed', 'boom');
+      await expect(claimRunForResume(store, b, me, alive)).resolves.toBeInstanceOf(Set);
+    });
   });
 });

@@ -53,7 +53,7 @@ export function register(program: Command) {
     .option('--tolerance <rel>', "relative tolerance for the baseline comparison (default: the study's baseline.tolerance)", parseTolerance)
     .option('--junit <file>', 'write a JUnit XML report')
     .option('-w, --workers <n>', 'worker threads (default: the number of CPUs)', parseWholeNumber)
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--max-points <n>', 'refuse a study with more points than this', parseWholeNumber)
     .action(async (files: string[], opts: CheckOptions) => {
       // Validate every file (and every baseline) before running anything.

@@ -5,7 +5,7 @@ import { readdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
-import { closeStore, listRuns, openStore, resolveDbPath } from '../../shared/db/index.js';
+import { closeStore, isDatabaseUrl, listRuns, openStore, redactUrl, resolveDbPath } from '../../shared/db/index.js';
 import { ROLES } from '../../shared/db/schema.js';
 import { createUser, listUsers } from '../../shared/db/users.js';
 import { prepareStudy, runStudy } from '../../shared/runner/index.js';
@@ -21,7 +21,7 @@ export function register(program: Command) {
   program
     .command('demo')
     .description('run the demo studies, create one demo account per role (printed once), and serve the dashboard in development mode')
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('-p, --port <port>', 'port to listen on', parseWholeNumber, DEFAULT_PORT)
     .action(async (opts: { db?: string; port: number }) => {
       const db = resolveDbPath(opts.db);
@@ -50,7 +50,7 @@ export function register(program: Command) {
         await closeStore(store);
       }
       const server = await startServer({ db, port: opts.port, host: DEFAULT_HOST, dev: true });
-      process.stdout.write(`dashboard: ${server.url}  (database ${resolve(db)}; Ctrl-C stops)\n`);
+      process.stdout.write(`dashboard: ${server.url}  (database ${isDatabaseUrl(db) ? redactUrl(db) : resolve(db)}; Ctrl-C stops)\n`);
       await new Promise<void>((done) => {
         const stop = () => void server.close().then(done, done);
         process.once('SIGINT', stop);

@@ -13,7 +13,7 @@ export function register(program: Command) {
     .addOption(new Option('-f, --format <format>', 'output format').choices([...exportFormats]).default('csv'))
     .option('-o, --out <file>', 'write to this file (default: standard output; xlsx needs --out or a pipe)')
     .option('--columns <names>', 'Markdown/LaTeX: comma-separated columns to show (default: varying inputs, Re/Ra, Nu, h, flags)')
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .action(async (ref: string, opts: { format: ExportFormat; out?: string; columns?: string; db?: string }) => {
       if (opts.format === 'xlsx' && !opts.out && process.stdout.isTTY) {
         throw new InputError('--format xlsx writes a binary file: give --out FILE.xlsx or redirect standard output');

@@ -1,19 +1,19 @@
 // `filmsweep list`: the runs in the database, newest first.
 import { existsSync } from 'node:fs';
 import type { Command } from 'commander';
-import { closeStore, listRuns, openStore, resolveDbPath } from '../../shared/db/index.js';
+import { closeStore, isDatabaseUrl, listRuns, openStore, resolveDbPath } from '../../shared/db/index.js';
 import { printJson, table } from '../format.js';
 
 export function register(program: Command) {
   program
     .command('list')
     .description('list the runs in the database, newest first')
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--study <name>', 'only runs of this study')
     .option('--json', 'print JSON: {"runs": [{"id", "study", "status", "points_total", "points_done", "started_at", "finished_at"}]}')
     .action(async (opts: { db?: string; study?: string; json?: boolean }) => {
       const path = resolveDbPath(opts.db);
-      if (!existsSync(path)) {
+      if (!isDatabaseUrl(path) && !existsSync(path)) {
         // Listing creates nothing: no file simply means no runs.
         if (opts.json) printJson({ runs: [] });
         else process.stdout.write(`no runs yet (no database at ${path})\n`);

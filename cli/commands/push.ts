@@ -13,7 +13,7 @@ export function register(program: Command) {
     .argument('<run>', "run id, or 'latest'")
     .requiredOption('--server <url>', 'dashboard address, e.g. https://filmsweep.example.org')
     .option('--token <token>', 'API token (default: $FILMSWEEP_TOKEN)')
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .action(async (ref: string, opts: { server: string; token?: string; db?: string }) => {
       const token = opts.token ?? process.env.FILMSWEEP_TOKEN;
       if (!token) throw new InputError('--token: give an API token (or set FILMSWEEP_TOKEN); make one on the dashboard under API tokens');

@@ -3,7 +3,8 @@
 import type { Command } from 'commander';
 import { closeStore, openStore, resolveDbPath, resolveRunRef } from '../../shared/db/index.js';
 import { defaultWorkers, resumeRun } from '../../shared/runner/index.js';
-import { parseWholeNumber, sweepWithReporting, type SweepCommandOptions } from './run.js';
+import { InputError } from '../../shared/physics/types.js';
+import { parseWholeNumber, queueNotice, sweepWithReporting, type SweepCommandOptions } from './run.js';
 
 export function register(program: Command) {
   program
@@ -11,16 +12,23 @@ export function register(program: Command) {
     .description('finish an interrupted run without repeating or losing points (refuses a done run or one still running)')
     .argument('<run>', "run id, or 'latest'")
     .option('-w, --workers <n>', `worker threads (default: the number of CPUs, ${defaultWorkers()})`, parseWholeNumber)
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--batch-size <n>', 'points per batch and transaction (default: adaptive)', parseWholeNumber)
     .option('--force', 'take over a run marked running even if its process may be alive (other host, reused pid)')
+    .option('--queue <url>', 'put the missing batches on the Redis queue of `filmsweep worker` processes and follow the run')
     .option('--json', 'print only one JSON document on stdout, shaped as for `run --json`')
     .action(async (ref: string, opts: SweepCommandOptions & { db?: string; force?: boolean }) => {
+      // BullMQ is loaded only with --queue, not by every `filmsweep` start.
+      const queue = opts.queue === undefined ? undefined : await import('../../shared/queue/index.js');
+      const target = opts.queue === undefined ? undefined : queue!.parseQueueUrl(opts.queue);
+      if (target && opts.workers !== undefined) throw new InputError('--workers: with --queue, each `filmsweep worker` sets its own threads');
       const store = await openStore(resolveDbPath(opts.db), { create: false });
       try {
         const run = await resolveRunRef(store, ref);
         await sweepWithReporting(store, opts, async function* (options) {
-          yield await resumeRun(store, run.id, { ...options, force: opts.force });
+          yield target
+            ? await queue!.resumeOnQueue(store, run.id, target, { ...options, force: opts.force, notify: queueNotice })
+            : await resumeRun(store, run.id, { ...options, force: opts.force });
         });
       } finally {
         await closeStore(store);

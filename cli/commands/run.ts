@@ -11,6 +11,8 @@ import {
   type RunOutcome,
 } from '../../shared/runner/index.js';
 import { loadStudyFile } from '../../shared/study/index.js';
+import { InputError } from '../../shared/physics/types.js';
+import { parseQueueUrl } from '../../shared/queue/target.js';
 import { EXIT, ExitError } from '../errors.js';
 import { printJson } from '../format.js';
 import { createProgress } from '../progress.js';
@@ -40,6 +42,8 @@ export interface SweepCommandOptions {
   json?: boolean;
   workers?: number;
   batchSize?: number;
+  /** The --queue URL of a queued run (for the resume hint). */
+  queue?: string;
 }
 
 /**
@@ -82,10 +86,16 @@ export async function sweepWithReporting(
   const bad = outcomes.filter((o) => o.status !== 'done');
   if (bad.length) {
     const what = bad.map((o) => `run ${o.id} ${o.status}${o.error ? `: ${o.error}` : ''}`).join('; ');
-    const hint = bad.some((o) => o.status === 'interrupted') ? ` (finish with \`filmsweep resume ${bad[0].id}\`)` : '';
+    const onQueue = opts.queue === undefined ? '' : ` --queue ${parseQueueUrl(opts.queue).display}`;
+    const hint = bad.some((o) => o.status === 'interrupted') ? ` (finish with \`filmsweep resume ${bad[0].id}${onQueue}\`)` : '';
     throw new ExitError(EXIT.runFailed, `${what}${hint}`);
   }
   if (interrupts.received) throw new ExitError(EXIT.runFailed, `interrupted by ${interrupts.received}`);
+}
+
+/** Messages of a queued run (no worker connected yet, …) on stderr, beside the progress. */
+export function queueNotice(message: string): void {
+  process.stderr.write(`filmsweep: ${message}\n`);
 }
 
 export function register(program: Command) {
@@ -94,14 +104,19 @@ export function register(program: Command) {
     .description('validate study files, sweep every point across worker threads and store one run per file')
     .argument('<files...>', 'study files (YAML)')
     .option('-w, --workers <n>', `worker threads (default: the number of CPUs, ${defaultWorkers()})`, parseWholeNumber)
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--max-points <n>', 'refuse a study with more points than this', parseWholeNumber)
     .option('--batch-size <n>', 'points per batch and transaction (default: adapts to about 0.2 s per batch)', parseWholeNumber)
+    .option('--queue <url>', 'put the batches on a Redis queue for `filmsweep worker` processes and follow the run: redis://host[:port][/db][?prefix=NAME]')
     .option(
       '--json',
       'print only one JSON document on stdout: {"runs": [{"id", "study", "status", "points_total", "points_done", "results", "flagged", "seconds"}]}',
     )
     .action(async (files: string[], opts: SweepCommandOptions & { db?: string; maxPoints?: number }) => {
+      // BullMQ is loaded only with --queue, not by every `filmsweep` start.
+      const queue = opts.queue === undefined ? undefined : await import('../../shared/queue/index.js');
+      const target = opts.queue === undefined ? undefined : queue!.parseQueueUrl(opts.queue);
+      if (target && opts.workers !== undefined) throw new InputError('--workers: with --queue, each `filmsweep worker` sets its own threads');
       // Every file is read, validated and expanded before the database is opened.
       const prepared = files.map((file) => prepareStudy(loadStudyFile(file, { maxPoints: opts.maxPoints })));
       const store = await openStore(resolveDbPath(opts.db));
@@ -109,7 +124,7 @@ export function register(program: Command) {
         await sweepWithReporting(store, opts, async function* (options, interrupted) {
           for (const study of prepared) {
             if (interrupted()) break;
-            yield await runStudy(store, study, options);
+            yield target ? await queue!.runOnQueue(store, study, target, { ...options, notify: queueNotice }) : await runStudy(store, study, options);
           }
         });
       } finally {

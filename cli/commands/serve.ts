@@ -1,6 +1,6 @@
-// `filmsweep serve [--port P] [--host H] [--db FILE] [--dev]`: the dashboard and its API.
+// `filmsweep serve [--port P] [--host H] [--db FILE|URL] [--dev]`: the dashboard and its API.
 import { InvalidArgumentError, type Command } from 'commander';
-import { resolveDbPath } from '../../shared/db/index.js';
+import { redactUrl, resolveDbPath } from '../../shared/db/index.js';
 import { DEFAULT_HOST, DEFAULT_PORT, startServer } from '../../server/index.js';
 import { parseWholeNumber } from './run.js';
 
@@ -16,7 +16,7 @@ export function register(program: Command) {
     .description('serve the dashboard (the built web app) and its JSON API under /api')
     .option('-p, --port <port>', `port to listen on (0 picks a free one)`, parsePort, DEFAULT_PORT)
     .option('-H, --host <host>', 'address to listen on; 0.0.0.0 for every interface (put an HTTPS proxy in front)', DEFAULT_HOST)
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--dev', 'development mode: leads can read the local mail outbox at /api/outbox (also when NODE_ENV is not "production")')
     .option('--trust-proxy <hops>', 'behind a reverse proxy: trust this many hops of X-Forwarded-* (HTTPS detection, client address)', parseWholeNumber)
     .option('--public-url <url>', 'base of the links in e-mails (default: the address the request came to)')
@@ -34,7 +34,7 @@ export function register(program: Command) {
           workers: opts.workers,
           maxPoints: opts.maxPoints,
         });
-        process.stderr.write(`filmsweep: dashboard at ${server.url} (database ${resolveDbPath(opts.db)}); Ctrl-C stops\n`);
+        process.stderr.write(`filmsweep: dashboard at ${server.url} (database ${redactUrl(resolveDbPath(opts.db))}); Ctrl-C stops\n`);
         await new Promise<void>((resolve) => {
           const stop = () => {
             process.off('SIGINT', stop);

@@ -54,7 +54,7 @@ export function register(program: Command) {
     .command('show')
     .description("one run: study, status, timing, git commit, host, and per method the points, flagged points and Nu range")
     .argument('<run>', "run id, or 'latest'")
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--json', 'print JSON: {"run": {...}, "error": ..., "summary": [...]}')
     .action(async (ref: string, opts: { db?: string; json?: boolean }) => {
       const store = await openStore(resolveDbPath(opts.db), { create: false });

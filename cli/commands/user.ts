@@ -16,7 +16,7 @@ export function register(program: Command) {
     .addOption(new Option('-r, --role <role>', 'viewer (browse, export), researcher (also upload and run), lead (also team and reference runs)').choices([...ROLES]).makeOptionMandatory())
     .option('--password <password>', `password, at least ${MIN_PASSWORD_LENGTH} characters (default: generated and printed)`)
     .option('--name <name>', 'display name (default: the part of the e-mail before @)')
-    .option('--db <file>', 'database file (default: $FILMSWEEP_DB or ./filmsweep.db)')
+    .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .action(async (email: string, opts: { role: Role; password?: string; name?: string; db?: string }) => {
       if (!/^[^@\s]+@[^@\s]+$/.test(email)) throw new InputError(`'${email}' is not an e-mail address`);
       if (opts.password !== undefined && opts.password.length < MIN_PASSWORD_LENGTH) {

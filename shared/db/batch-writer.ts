@@ -2,11 +2,13 @@
 // the run's progress counters, so a reader sees a batch entirely or not at all and a
 // kill -9 loses at most the batches not yet committed.
 //
-// These statements go straight to better-sqlite3, prepared once, on the same connection
-// Kysely uses: building, compiling and awaiting a Kysely query per row costs more than
-// the insert itself at 1e6 rows, and a batch must be written synchronously anyway to
-// stay one transaction. Everything else in shared/db goes through Kysely.
-import { retryBusySync } from './busy.js';
+// Idempotent: points and results go in with ON CONFLICT DO NOTHING on their keys
+// ((run_id, idx) and (run_id, point_idx, method_idx)) and the counters advance by the rows
+// actually inserted, so a batch written twice (a queue job retried after its worker died
+// between commit and acknowledgement) changes nothing the second time.
+//
+// The statements differ by dialect (shared/db/dialect.ts): prepared better-sqlite3
+// statements on SQLite, multi-row INSERT … SELECT FROM unnest(arrays) on PostgreSQL.
 import type { Store } from './store.js';
 
 /**
@@ -26,41 +28,18 @@ export interface EncodedBatch {
   flags: string[];
 }
 
-export interface BatchWriter {
-  /** Writes the batch and advances the run's counters, atomically. */
-  write(batch: EncodedBatch): { points: number; results: number; flagged: number };
+/** Rows a write actually inserted (zero for points already stored). */
+export interface WrittenCounts {
+  points: number;
+  results: number;
+  flagged: number;
 }
 
-const EMPTY_FLAGS = '[]';
+export interface BatchWriter {
+  /** Writes the batch and advances the run's counters by the rows inserted, atomically. */
+  write(batch: EncodedBatch): Promise<WrittenCounts>;
+}
 
 export function createBatchWriter(store: Store, runId: number, methodIds: readonly string[]): BatchWriter {
-  const { sqlite } = store;
-  const insertPoint = sqlite.prepare('insert into points (run_id, idx, inputs) values (?, ?, jsonb(?))');
-  const insertResult = sqlite.prepare(
-    'insert into results (run_id, point_idx, method_idx, method, outputs, flags, flagged) values (?, ?, ?, ?, jsonb(?), ?, ?)',
-  );
-  const advance = sqlite.prepare(
-    'update runs set points_done = points_done + ?, results_count = results_count + ?, flagged_count = flagged_count + ? where id = ?',
-  );
-  const M = methodIds.length;
-  const writeAll = sqlite.transaction((batch: EncodedBatch) => {
-    const { points, inputs, outputs, flags } = batch;
-    if (outputs.length !== points.length * M || flags.length !== outputs.length) {
-      throw new Error(`batch of ${points.length} points has ${outputs.length} results for ${M} methods`);
-    }
-    let flagged = 0;
-    for (let i = 0; i < points.length; i++) {
-      insertPoint.run(runId, points[i], inputs[i]);
-      for (let m = 0, k = i * M; m < M; m++, k++) {
-        const isFlagged = flags[k] === EMPTY_FLAGS ? 0 : 1;
-        flagged += isFlagged;
-        insertResult.run(runId, points[i], m, methodIds[m], outputs[k], flags[k], isFlagged);
-      }
-    }
-    advance.run(points.length, outputs.length, flagged, runId);
-    return { points: points.length, results: outputs.length, flagged };
-  });
-  // BEGIN IMMEDIATE: take the write lock up front, so waiting for another process happens
-  // in the busy handler instead of failing half-way through the batch.
-  return { write: (batch) => retryBusySync(() => writeAll.immediate(batch)) };
+  return store.dialect.batchWriter(runId, methodIds);
 }

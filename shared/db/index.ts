@@ -1,7 +1,8 @@
-// The store: SQLite through Kysely (schema in migrations/), plus the queries the CLI and
-// the dashboard server share.
+// The store: SQLite or PostgreSQL through Kysely (schema in migrations/, dialect
+// differences in dialect.ts), plus the queries the CLI and the dashboard server share.
 export { openStore, closeStore, type Store, type OpenOptions } from './store.js';
-export { resolveDbPath, DEFAULT_DB_FILE } from './path.js';
+export { resolveDbPath, isDatabaseUrl, redactUrl, DEFAULT_DB_FILE } from './path.js';
+export type { Dialect, DialectName } from './dialect.js';
 export { migrateToLatest, pendingMigrations } from './migrate.js';
 export type { Database, RunStatus, RunRow } from './schema.js';
 export { RUN_STATUSES } from './schema.js';
@@ -27,7 +28,7 @@ export {
   type NewRunSpec,
   type RunSource,
 } from './runs.js';
-export { createBatchWriter, type BatchWriter, type EncodedBatch } from './batch-writer.js';
+export { createBatchWriter, type BatchWriter, type EncodedBatch, type WrittenCounts } from './batch-writer.js';
 export { immediateTransaction } from './transaction.js';
 export { isBusyError } from './busy.js';
 // The dashboard's store modules (migrations/0002_dashboard.ts).

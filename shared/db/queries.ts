@@ -4,6 +4,7 @@ import type { ResultRow } from '../physics/engine.js';
 import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import type { MethodVersion } from './runs.js';
 import type { RunStatus } from './schema.js';
+import { jsonNumberSql, jsonTextSql } from './dialect.js';
 import type { Store } from './store.js';
 import type { RunInfo } from '../export/run-info.js';
 
@@ -129,8 +130,8 @@ export async function getRunRows(store: Store, runId: number): Promise<{ run: Ru
     .selectFrom('results as r')
     .innerJoin('points as p', (j) => j.onRef('p.run_id', '=', 'r.run_id').onRef('p.idx', '=', 'r.point_idx'))
     .select(['r.point_idx', 'r.method', 'r.flags'])
-    .select(sql<string>`json(p.inputs)`.as('inputs'))
-    .select(sql<string>`json(r.outputs)`.as('outputs'))
+    .select(jsonTextSql(store.db, 'p.inputs').as('inputs'))
+    .select(jsonTextSql(store.db, 'r.outputs').as('outputs'))
     .where('r.run_id', '=', runId)
     .orderBy('r.point_idx')
     .orderBy('r.method_idx')
@@ -157,10 +158,10 @@ export async function getRunSummary(store: Store, runId: number): Promise<Method
     .selectFrom('results')
     .select(['method_idx'])
     .select((eb) => [eb.fn.countAll<number>().as('points'), eb.fn.sum<number>('flagged').as('flagged')])
-    .select(sql<number | null>`min(outputs ->> '$.Nu')`.as('nu_min'))
-    .select(sql<number | null>`max(outputs ->> '$.Nu')`.as('nu_max'))
-    .select(sql<number | null>`min(outputs ->> '$.Nu_x')`.as('nux_min'))
-    .select(sql<number | null>`max(outputs ->> '$.Nu_x')`.as('nux_max'))
+    .select(sql<number | null>`min(${jsonNumberSql(store.db, 'outputs', 'Nu')})`.as('nu_min'))
+    .select(sql<number | null>`max(${jsonNumberSql(store.db, 'outputs', 'Nu')})`.as('nu_max'))
+    .select(sql<number | null>`min(${jsonNumberSql(store.db, 'outputs', 'Nu_x')})`.as('nux_min'))
+    .select(sql<number | null>`max(${jsonNumberSql(store.db, 'outputs', 'Nu_x')})`.as('nux_max'))
     .where('run_id', '=', runId)
     .groupBy('method_idx')
     .execute();

@@ -68,12 +68,12 @@ interface Expr {
 async function openSource(store: Store, runId: number): Promise<Source> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
-  const cache = ensureResultsCache(store, runId);
+  const cache = await ensureResultsCache(store, runId);
   if (cache) return { run, columns: cache.columns, cache, from: `${cache.table} c`, where: [], params: [] };
   const sample = run.results_count > COLUMN_SAMPLE || run.status === 'running' ? COLUMN_SAMPLE : undefined;
   return {
     run,
-    columns: scanRunColumns(store, runId, sample),
+    columns: await scanRunColumns(store, runId, sample),
     from: 'results r join points p on p.run_id = r.run_id and p.idx = r.point_idx',
     where: ['r.run_id = ?'],
     params: [runId],
@@ -85,16 +85,16 @@ export async function getRunColumns(store: Store, runId: number): Promise<RunCol
   return (await openSource(store, runId)).columns;
 }
 
-function valueExpr(src: Source, name: string): Expr {
+function valueExpr(store: Store, src: Source, name: string): Expr {
   if (!NAME_PATTERN.test(name)) throw new InputError(`'${name}' is not a column name`);
   // An output wins over an input of the same name: it is what the method computed.
   if (src.cache) {
     const column = src.cache.outputColumn.get(name) ?? src.cache.inputColumn.get(name);
     if (column) return { sql: `c.${column}`, params: [], column };
   } else if (src.columns.outputs.includes(name)) {
-    return { sql: 'r.outputs ->> ?', params: [`$."${name}"`] };
+    return { sql: store.dialect.jsonNumber('r.outputs', name), params: [] };
   } else if (src.columns.inputs.includes(name)) {
-    return { sql: 'p.inputs ->> ?', params: [`$."${name}"`] };
+    return { sql: store.dialect.jsonNumber('p.inputs', name), params: [] };
   }
   const known = [...new Set([...src.columns.inputs, ...src.columns.outputs])].sort();
   throw new InputError(`run ${src.run.id} has no input or output '${name}'; it has: ${known.join(', ')}`);
@@ -119,7 +119,7 @@ interface Conditions {
   filterExprs: Expr[];
 }
 
-function conditions(src: Source, q: Pick<ResultsQuery, 'methods' | 'flagged' | 'filters'>): Conditions {
+function conditions(store: Store, src: Source, q: Pick<ResultsQuery, 'methods' | 'flagged' | 'filters'>): Conditions {
   const out: Conditions = { sql: [...src.where], params: [...src.params], filterExprs: [] };
   if (q.methods?.length) {
     const idx = methodIndices(src.run, q.methods);
@@ -129,7 +129,7 @@ function conditions(src: Source, q: Pick<ResultsQuery, 'methods' | 'flagged' | '
   if (q.flagged === 'yes') out.sql.push(`${col(src, 'flagged')} = 1`);
   if (q.flagged === 'no') out.sql.push(`${col(src, 'flagged')} = 0`);
   for (const f of q.filters ?? []) {
-    const e = valueExpr(src, f.name);
+    const e = valueExpr(store, src, f.name);
     out.filterExprs.push(e);
     if (f.min !== undefined) {
       out.sql.push(`${e.sql} >= ?`);
@@ -158,9 +158,9 @@ export async function queryResults(store: Store, runId: number, q: ResultsQuery 
   const pageSize = Math.min(MAX_PAGE_SIZE, Math.max(1, Math.floor(q.pageSize ?? 50)));
   const dir = q.order === 'desc' ? 'desc' : 'asc';
   const src = await openSource(store, runId);
-  const cond = conditions(src, q);
+  const cond = conditions(store, src, q);
   const sort = q.sort ?? 'point';
-  const sortExpr = sort === 'point' || sort === 'method' ? undefined : valueExpr(src, sort);
+  const sortExpr = sort === 'point' || sort === 'method' ? undefined : valueExpr(store, src, sort);
 
   // With a cache, steer SQLite to covering indexes (measured on 1e6 results, see
   // migrations/0002_dashboard.ts): the count walks the index led by the first filter's
@@ -169,62 +169,72 @@ export async function queryResults(store: Store, runId: number, q: ResultsQuery 
   // sort, 60–110 ms, or an index walk with a row lookup per entry, up to 300 ms when the
   // filter removes one end of the sort order). When the filters leave under 5 % of the
   // rows, the page reads those through the count's index and sorts them.
+  // Index hints are SQLite's; PostgreSQL's planner gets the same indexes, unhinted.
+  const hint = (index: string) => store.dialect.indexHint(index);
   let countHint = '';
-  let pagePlan: (total: number) => string = () => '';
+  let pagePlan: (total: number) => Promise<string> = async () => '';
   if (src.cache) {
     const cache = src.cache;
     const filterColumns = [...new Set(cond.filterExprs.map((e) => e.column!))];
     const tested = [...filterColumns, 'method_idx', 'flagged'];
     const narrowed = filterColumns.length > 0 || Boolean(q.methods?.length) || q.flagged === 'yes' || q.flagged === 'no';
-    const countIndex = narrowed ? ensureCacheIndex(store, cache, tested) : undefined;
-    if (countIndex) countHint = ` indexed by ${countIndex}`;
-    pagePlan = (total: number) => {
+    const countIndex = narrowed ? await ensureCacheIndex(store, cache, tested) : undefined;
+    if (countIndex) countHint = hint(countIndex);
+    pagePlan = async (total: number) => {
       const selective = total < src.run.results_count * 0.05;
       if (selective && countIndex) return countHint;
       if (sort === 'point') return '';
       const lead = sortExpr ? sortExpr.column! : 'method_idx';
-      return ` indexed by ${ensureCacheIndex(store, cache, [lead, ...tested])}`;
+      return hint(await ensureCacheIndex(store, cache, [lead, ...tested]));
     };
   }
-  const total = Number(
-    store.sqlite.prepare(`select count(*) from ${src.from}${countHint}${whereOf(cond)}`).pluck().get(...cond.params),
-  );
-  const pageHint = pagePlan(total);
+  const [counted] = await store.dialect.all<{ n: number }>(`select count(*) as n from ${src.from}${countHint}${whereOf(cond)}`, cond.params);
+  const total = Number(counted.n);
+  const pageHint = await pagePlan(total);
+  // A missing value sorts below every number, on both stores.
+  const nulls = store.dialect.nullsLow(dir);
 
   const order =
     sort === 'point'
       ? `${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`
       : sort === 'method'
         ? `${col(src, 'method')} ${dir}, ${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`
-        : `${sortExpr!.sql} ${dir}, ${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`;
+        : `${sortExpr!.sql} ${dir}${nulls}, ${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`;
   // From a cache, take seq (in every index) and look the result ids up for the page only.
-  const picked = store.sqlite
-    .prepare(`select ${src.cache ? 'c.seq' : col(src, 'id')} from ${src.from}${pageHint}${whereOf(cond)} order by ${order} limit ? offset ?`)
-    .pluck()
-    .all(...cond.params, ...(sortExpr?.params ?? []), pageSize, (page - 1) * pageSize) as number[];
-  const ids = src.cache ? resultIdsOf(store, src.cache, picked) : picked;
-  return { total, page, pageSize, rows: readRows(store, ids) };
+  const picked = (
+    await store.dialect.all<{ k: number }>(
+      `select ${src.cache ? 'c.seq' : col(src, 'id')} as k from ${src.from}${pageHint}${whereOf(cond)} order by ${order} limit ? offset ?`,
+      [...cond.params, ...(sortExpr?.params ?? []), pageSize, (page - 1) * pageSize],
+    )
+  ).map((r) => Number(r.k));
+  const ids = src.cache ? await resultIdsOf(store, src.cache, picked) : picked;
+  return { total, page, pageSize, rows: await readRows(store, ids) };
 }
 
-function resultIdsOf(store: Store, cache: ResultsCache, seqs: number[]): number[] {
-  const get = store.sqlite.prepare(`select result_id from ${cache.table} where seq = ?`).pluck();
-  return seqs.map((q) => get.get(q) as number);
+async function resultIdsOf(store: Store, cache: ResultsCache, seqs: number[]): Promise<number[]> {
+  if (seqs.length === 0) return [];
+  const rows = await store.dialect.all<{ seq: number; result_id: number }>(
+    `select seq, result_id from ${cache.table} where seq in (${seqs.map(() => '?').join(', ')})`,
+    seqs,
+  );
+  const bySeq = new Map(rows.map((r) => [Number(r.seq), Number(r.result_id)]));
+  return seqs.map((q) => bySeq.get(q)!);
 }
 
 /** Full rows for result ids, in the given order. */
-function readRows(store: Store, ids: number[]): ResultPageRow[] {
+async function readRows(store: Store, ids: number[]): Promise<ResultPageRow[]> {
   if (ids.length === 0) return [];
-  const raw = store.sqlite
-    .prepare(
-      `select r.id, r.point_idx, r.method, r.flags, json(p.inputs) as inputs, json(r.outputs) as outputs
-       from results r join points p on p.run_id = r.run_id and p.idx = r.point_idx
-       where r.id in (${ids.map(() => '?').join(', ')})`,
-    )
-    .all(...ids) as { id: number; point_idx: number; method: string; flags: string; inputs: string; outputs: string }[];
-  const byId = new Map(raw.map((r) => [r.id, r]));
+  const d = store.dialect;
+  const raw = await d.all<{ id: number; point_idx: number; method: string; flags: string; inputs: string; outputs: string }>(
+    `select r.id, r.point_idx, r.method, r.flags, ${d.jsonText('p.inputs')} as inputs, ${d.jsonText('r.outputs')} as outputs
+     from results r join points p on p.run_id = r.run_id and p.idx = r.point_idx
+     where r.id in (${ids.map(() => '?').join(', ')})`,
+    ids,
+  );
+  const byId = new Map(raw.map((r) => [Number(r.id), r]));
   return ids.map((id) => {
     const r = byId.get(id)!;
-    return { id: r.id, point: r.point_idx, method: r.method, inputs: JSON.parse(r.inputs), outputs: JSON.parse(r.outputs), flags: JSON.parse(r.flags) };
+    return { id: Number(r.id), point: r.point_idx, method: r.method, inputs: JSON.parse(r.inputs), outputs: JSON.parse(r.outputs), flags: JSON.parse(r.flags) };
   });
 }
 
@@ -266,45 +276,48 @@ export interface ChartData {
 export async function chartData(store: Store, runId: number, q: ChartQuery): Promise<ChartData> {
   const max = Math.min(MAX_CHART_POINTS, Math.max(10, Math.floor(q.max ?? 2000)));
   const src = await openSource(store, runId);
-  const cond = conditions(src, { methods: q.methods, filters: q.filters });
-  const x = valueExpr(src, q.x);
-  const y = valueExpr(src, q.y);
-  const bySeries = q.series && q.series !== 'method' ? valueExpr(src, q.series) : undefined;
+  const d = store.dialect;
+  const cond = conditions(store, src, { methods: q.methods, filters: q.filters });
+  const x = valueExpr(store, src, q.x);
+  const y = valueExpr(store, src, q.y);
+  const bySeries = q.series && q.series !== 'method' ? valueExpr(store, src, q.series) : undefined;
   const m = col(src, 'method');
   const f = col(src, 'flagged');
-  const seriesSql = bySeries ? `${m} || '|' || coalesce(${bySeries.sql}, '')` : `${m}`;
+  const seriesSql = bySeries ? `${m} || '|' || ${d.labelText(bySeries.sql)}` : `${m}`;
   const baseParams = [...(bySeries?.params ?? []), ...x.params, ...y.params, ...cond.params, ...x.params, ...y.params];
   // Numbers only: a string or switch value cannot be plotted.
-  const numeric = (e: Expr) => `typeof(${e.sql}) in ('integer', 'real')`;
+  const numeric = (e: Expr) => d.isNumber(e.sql);
   const base =
     `select ${seriesSql} as s, ${m} as m, ${x.sql} as x, ${y.sql} as y, ${f} as f from ${src.from}` +
     `${whereOf(cond)}${cond.sql.length ? ' and ' : ' where '}${numeric(x)} and ${numeric(y)}`;
 
-  const seriesRows = store.sqlite
-    .prepare(`with src as (${base}) select s, m, count(*) as n, min(x) as lo, max(x) as hi from src group by s order by m, s`)
-    .all(...baseParams) as { s: string; m: number; n: number; lo: number; hi: number }[];
+  const seriesRows = await d.all<{ s: string; m: number; n: number; lo: number; hi: number }>(
+    `with src as (${base}) select s, m, count(*) as n, min(x) as lo, max(x) as hi from src group by s, m order by m, s`,
+    baseParams,
+  );
   if (seriesRows.length > MAX_SERIES) {
     throw new InputError(`series by '${q.series}' gives ${seriesRows.length} series; at most ${MAX_SERIES} can be plotted`);
   }
-  const total = seriesRows.reduce((a, s) => a + s.n, 0);
+  const total = seriesRows.reduce((a, s) => a + Number(s.n), 0);
   const downsampled = total > max;
   const points = new Map<string, [number, number, 0 | 1][]>();
   if (!downsampled) {
-    const rows = store.sqlite.prepare(`${base} order by ${m}, x, y`).raw().all(...baseParams) as [string, number, number, number, number][];
-    for (const [s, , xv, yv, fv] of rows) push(points, s, [xv, yv, fv ? 1 : 0]);
+    const rows = await d.all<{ s: string; x: number; y: number; f: number }>(`${base} order by ${m}, x, y`, baseParams);
+    for (const r of rows) push(points, r.s, [r.x, r.y, r.f ? 1 : 0]);
   } else {
     const buckets = Math.max(1, Math.floor(max / (2 * seriesRows.length)));
     const logX = seriesRows.every((s) => s.lo > 0);
     const pos = logX ? '(ln(src.x) - ln(e.lo)) / (ln(e.hi) - ln(e.lo))' : '(src.x - e.lo) / (e.hi - e.lo)';
     const bucketed =
       `with src as (${base}), e as (select s, min(x) as lo, max(x) as hi from src group by s), ` +
-      `b as (select src.s, src.x, src.y, src.f, case when e.hi = e.lo then 0 else min(${buckets - 1}, cast(${pos} * ${buckets} as integer)) end as k ` +
+      `b as (select src.s, src.x, src.y, src.f, case when e.hi = e.lo then 0 else ${d.least(String(buckets - 1), d.floorInt(`${pos} * ${buckets}`))} end as k ` +
       `from src join e on e.s = src.s) `;
-    // A lone min() or max() makes SQLite take the other columns from that row.
-    const lows = store.sqlite.prepare(`${bucketed} select s, k, x, min(y) as y, f from b group by s, k`).raw().all(...baseParams);
-    const highs = store.sqlite.prepare(`${bucketed} select s, k, x, max(y) as y, f from b group by s, k`).raw().all(...baseParams);
+    const extremes = (which: 'min' | 'max') =>
+      d.all<{ s: string; k: number; x: number; y: number; f: number }>(`${bucketed} ${d.extremeRows('b', ['s', 'k'], 'y', which, ['s', 'k', 'x', 'y', 'f'])}`, baseParams);
+    const lows = await extremes('min');
+    const highs = await extremes('max');
     const seen = new Set<string>();
-    for (const [s, k, xv, yv, fv] of [...(lows as unknown[][]), ...(highs as unknown[][])] as [string, number, number, number, number][]) {
+    for (const { s, k, x: xv, y: yv, f: fv } of [...lows, ...highs]) {
       const key = `${s}\u0000${k}\u0000${xv}\u0000${yv}`;
       if (seen.has(key)) continue;
       seen.add(key);
@@ -383,25 +396,24 @@ export async function compareRuns(store: Store, aId: number, bId: number, q: Com
   if (!b) throw new InputError(`no run ${bId} in this database`);
   const page = Math.max(1, Math.floor(q.page ?? 1));
   const pageSize = Math.min(MAX_PAGE_SIZE, Math.max(1, Math.floor(q.pageSize ?? 50)));
-  const read = store.sqlite.prepare(
-    `select r.method, json(p.inputs) as inputs, r.outputs ->> ? as v from results r
-     join points p on p.run_id = r.run_id and p.idx = r.point_idx where r.run_id = ? order by r.point_idx, r.method_idx`,
-  );
-  const path = `$."${q.output}"`;
+  const d = store.dialect;
+  const read =
+    `select r.method, ${d.jsonText('p.inputs')} as inputs, ${d.jsonNumber('r.outputs', q.output)} as v from results r
+     join points p on p.run_id = r.run_id and p.idx = r.point_idx where r.run_id = ? order by r.point_idx, r.method_idx`;
   const key = (method: string, inputs: string) => `${method}\u0000${canonical(inputs)}`;
   const bValues = new Map<string, number | null>();
-  for (const r of read.iterate(path, bId) as Iterable<{ method: string; inputs: string; v: unknown }>) {
+  await d.each<{ method: string; inputs: string; v: unknown }>(read, [bId], (r) => {
     bValues.set(key(r.method, r.inputs), typeof r.v === 'number' ? r.v : null);
-  }
+  });
   const pairs: CompareRow[] = [];
   let changed = 0;
   let onlyA = 0;
   const matched = new Set<string>();
-  for (const r of read.iterate(path, aId) as Iterable<{ method: string; inputs: string; v: unknown }>) {
+  await d.each<{ method: string; inputs: string; v: unknown }>(read, [aId], (r) => {
     const k = key(r.method, r.inputs);
     if (!bValues.has(k)) {
       onlyA++;
-      continue;
+      return;
     }
     matched.add(k);
     const av = typeof r.v === 'number' ? r.v : null;
@@ -409,9 +421,9 @@ export async function compareRuns(store: Store, aId: number, bId: number, q: Com
     const rel = av !== null && bv !== null && av !== 0 ? (bv - av) / Math.abs(av) : null;
     const differs = av === null || bv === null ? av !== bv : Math.abs(bv - av) > SAME * Math.max(Math.abs(av), Math.abs(bv));
     if (differs) changed++;
-    if (q.changed === 'yes' && !differs) continue;
+    if (q.changed === 'yes' && !differs) return;
     pairs.push({ method: r.method, inputs: JSON.parse(r.inputs) as Inputs, a: av, b: bv, rel_diff: rel });
-  }
+  });
   const onlyB = bValues.size - matched.size;
   return {
     a,

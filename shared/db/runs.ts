@@ -28,7 +28,7 @@ const now = () => new Date().toISOString();
 
 /** Stores the study and its version (once per content) and a new `running` run. */
 export async function createRun(store: Store, spec: NewRunSpec): Promise<number> {
-  return immediateTransaction(store.db, async (db) => {
+  return immediateTransaction(store, async (db) => {
     const time = now();
     await db
       .insertInto('studies')
@@ -85,7 +85,7 @@ export async function createRun(store: Store, spec: NewRunSpec): Promise<number>
 }
 
 export async function finishRun(store: Store, runId: number, status: Exclude<RunStatus, 'queued' | 'running'>, error?: string): Promise<void> {
-  await immediateTransaction(store.db, (db) =>
+  await immediateTransaction(store, (db) =>
     db
       .updateTable('runs')
       .set({ status, finished_at: now(), error: error ?? null })
@@ -148,7 +148,7 @@ export async function claimRunForResume(
   me: { host: string; pid: number; workers: number },
   isAlive: (host: string, pid: number) => boolean,
 ): Promise<Set<number>> {
-  return immediateTransaction(store.db, async (db) => {
+  return immediateTransaction(store, async (db) => {
     const run = await db.selectFrom('runs').select(['status', 'host', 'pid']).where('id', '=', runId).executeTakeFirst();
     if (!run) throw new InputError(`no run ${runId} in this database`);
     const refusal = resumeRefusal(runId, run, isAlive);

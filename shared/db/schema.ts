@@ -1,5 +1,6 @@
 // Kysely's typed view of the database (migrations/ creates it). Timestamps are ISO-8601
-// text; inputs and outputs are JSONB blobs (read them with json(…), filter with ->>).
+// text; inputs and outputs are JSON columns (JSONB blobs on SQLite, json on PostgreSQL:
+// read and filter them through shared/db/dialect.ts).
 import type { Generated, Insertable, Selectable } from 'kysely';
 
 export const RUN_STATUSES = ['queued', 'running', 'done', 'failed', 'interrupted'] as const;

@@ -58,9 +58,12 @@ export async function setRunReference(store: Store, id: number, reference: boole
   await store.db.updateTable('runs').set({ reference: reference ? 1 : 0 }).where('id', '=', id).execute();
 }
 
-/** Synchronous on purpose: called from the runner's onStart, between batch writes. */
-export function setRunStartedBy(store: Store, id: number, userId: number, gitCommit: string | null): void {
-  store.sqlite.prepare('update runs set started_by = ?, git_commit = ? where id = ?').run(userId, gitCommit, id);
+/**
+ * Called from the runner's onStart, between batch writes. On SQLite the statement runs
+ * before this returns (the dialect's statements are synchronous underneath).
+ */
+export async function setRunStartedBy(store: Store, id: number, userId: number, gitCommit: string | null): Promise<void> {
+  await store.dialect.run('update runs set started_by = ?, git_commit = ? where id = ?', [userId, gitCommit, id]);
 }
 
 export async function findStudyByName(store: Store, name: string): Promise<{ id: number; name: string } | undefined> {

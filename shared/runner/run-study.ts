@@ -255,7 +255,7 @@ async function computeAndWrite(
     const computed = await pool.run({ ranges: toRanges(batch) }, { signal: options.cancel ?? null });
     if (options.cancel?.aborted) return;
     sizer.observe(batch.length, computed.computeMs);
-    onWritten(writer.write(computed));
+    onWritten(await writer.write(computed));
   };
 
   // p-limit runs at most `inFlight` batches at once; a batch is cut only when a slot is

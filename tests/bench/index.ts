@@ -9,6 +9,7 @@ import { benchSimilarity, benchSimilaritySweep } from './similarity.js';
 import { benchCorrelations } from './correlations.js';
 import { benchEndToEnd, benchWorkers } from './runner.js';
 import { benchApi } from './api.js';
+import { benchQueue } from './queue.js';
 import type { BenchContext } from './timing.js';
 
 const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
@@ -18,6 +19,7 @@ const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
   e2e: benchEndToEnd,
   workers: benchWorkers,
   api: benchApi,
+  queue: benchQueue,
 };
 
 async function main() {

@@ -1,4 +1,5 @@
-// A real dashboard server for the server-*.test.ts files: a SQLite file in a temp folder,
+// A real dashboard server for the server-*.test.ts files: a SQLite file in a temp folder
+// (or a given database),
 // app.listen(0) on 127.0.0.1, one account per role (bcrypt cost 4), and a small fetch
 // client that keeps the session cookie and sends the CSRF token.
 import { mkdtempSync, rmSync } from 'node:fs';
@@ -66,9 +67,10 @@ export class Client {
   }
 }
 
-export async function startTestServer(options: Partial<ServerOptions> = {}): Promise<TestServer> {
+/** `db`: a database to serve instead of a fresh SQLite file (a postgres:// URL, say). */
+export async function startTestServer(options: Partial<ServerOptions> = {}, db?: string): Promise<TestServer> {
   const dir = mkdtempSync(join(tmpdir(), 'filmsweep-server-'));
-  const store = await openStore(join(dir, 'dashboard.db'));
+  const store = await openStore(db ?? join(dir, 'dashboard.db'));
   const emails: Record<Role, string> = { viewer: 'vera@example.org', researcher: 'rafael@example.org', lead: 'lena@example.org' };
   for (const [role, email] of Object.entries(emails) as [Role, string][]) {
     await createUser(store, { email, role, password: PASSWORD, cost: 4, name: role });
