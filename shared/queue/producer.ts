@@ -3,20 +3,17 @@
 // has its results. The workers, on any machine, do the computing and the writing.
 import { dirname, resolve } from 'node:path';
 import { Queue, QueueEvents } from 'bullmq';
-import { InputError } from '../physics/types.js';
 import {
   claimRunForResume,
   createRun,
   finishRun,
-  getRunSource,
-  resumeRefusal,
   type RunStatus,
   type Store,
 } from '../db/index.js';
 import { MAX_BATCH, MIN_BATCH } from '../runner/batches.js';
-import { gitCommit, hostName, processAlive } from '../runner/environment.js';
-import { prepareStudy, type PreparedStudy, type RunOptions, type RunOutcome } from '../runner/run-study.js';
-import { entryLength, parseStudy } from '../study/index.js';
+import { gitCommit, hostName } from '../runner/environment.js';
+import { prepareResume, prepareStudy, type PreparedStudy, type RunOptions, type RunOutcome } from '../runner/run-study.js';
+import { entryLength } from '../study/index.js';
 import { BATCH_JOB, batchJobId, planBatches, type BatchJobData } from './jobs.js';
 import { whenReachable, type QueueTarget } from './target.js';
 
@@ -55,20 +52,7 @@ export interface QueueResumeOptions extends QueueRunOptions {
 
 /** Claims an unfinished run and queues the batches of the points that have no results yet. */
 export async function resumeOnQueue(store: Store, runId: number, target: QueueTarget, options: QueueResumeOptions = {}): Promise<RunOutcome> {
-  const source = await getRunSource(store, runId);
-  if (!source) throw new InputError(`no run ${runId} in this database`);
-  const isAlive = options.force ? () => false : processAlive;
-  const refusal = resumeRefusal(runId, source, isAlive);
-  if (refusal) throw new InputError(refusal);
-  const loaded = parseStudy(source.yaml, source.sourceFile ?? `run-${runId}.yaml`, { maxPoints: Math.max(source.pointsTotal, 1) });
-  if (loaded.hash !== source.hash) throw new Error(`run ${runId}: stored study text does not match its hash`);
-  const prepared = prepareStudy(loaded);
-  if (prepared.total !== source.pointsTotal) {
-    throw new InputError(`run ${runId}: the study now expands to ${prepared.total} points, the run has ${source.pointsTotal}`);
-  }
-  const was = source.methods.map((m) => `${m.id} v${m.version}`).join(', ');
-  const is = prepared.methods.map((m) => `${m.id} v${m.version}`).join(', ');
-  if (was !== is) throw new InputError(`run ${runId} cannot be resumed with this version of Filmsweep: the run used ${was}, this build has ${is}; start a new run`);
+  const { prepared, isAlive } = await prepareResume(store, runId, options.force);
   return withQueue(target, async (queue) => {
     const workers = await queue.getWorkersCount();
     const done = await claimRunForResume(store, runId, { host: hostName(), pid: process.pid, workers }, isAlive);

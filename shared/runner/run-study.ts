@@ -129,15 +129,18 @@ export interface ResumeOptions extends RunOptions {
   force?: boolean;
 }
 
-export async function resumeRun(store: Store, runId: number, options: ResumeOptions = {}): Promise<RunOutcome> {
-  const workers = resolveWorkers(options.workers);
+/**
+ * Everything a resume checks before it claims the run, shared by the local and the queue
+ * resume: the run exists and may be taken over, and the stored study text still expands to
+ * the same points with the same method versions. The sweep is rebuilt from the stored
+ * text, never from the file on disk (it may have changed).
+ */
+export async function prepareResume(store: Store, runId: number, force = false): Promise<{ prepared: PreparedStudy; isAlive: typeof processAlive }> {
   const source = await getRunSource(store, runId);
   if (!source) throw new InputError(`no run ${runId} in this database`);
-  const isAlive = options.force ? () => false : processAlive;
+  const isAlive = force ? () => false : processAlive;
   const refusal = resumeRefusal(runId, source, isAlive);
   if (refusal) throw new InputError(refusal);
-
-  // Rebuild the sweep from the stored text, never from the file on disk (it may have changed).
   const loaded = parseStudy(source.yaml, source.sourceFile ?? `run-${runId}.yaml`, { maxPoints: Math.max(source.pointsTotal, 1) });
   if (loaded.hash !== source.hash) throw new Error(`run ${runId}: stored study text does not match its hash`);
   const prepared = prepareStudy(loaded);
@@ -146,7 +149,12 @@ export async function resumeRun(store: Store, runId: number, options: ResumeOpti
   }
   const changed = methodChanges(source.methods, prepared.methods);
   if (changed) throw new InputError(`run ${runId} cannot be resumed with this version of Filmsweep: ${changed}; start a new run`);
+  return { prepared, isAlive };
+}
 
+export async function resumeRun(store: Store, runId: number, options: ResumeOptions = {}): Promise<RunOutcome> {
+  const workers = resolveWorkers(options.workers);
+  const { prepared, isAlive } = await prepareResume(store, runId, options.force);
   const donePoints = await claimRunForResume(store, runId, { host: hostName(), pid: process.pid, workers }, isAlive);
   const todo: number[] = [];
   for (let i = 0; i < prepared.total; i++) if (!donePoints.has(i)) todo.push(i);
