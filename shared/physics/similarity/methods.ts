@@ -12,7 +12,7 @@ const VERSION = 1;
 const UNCERTAINTY = {
   fraction: 1e-6,
   note:
-    'numerical accuracy of the similarity solution (checked against the published tables at their printed digits); the model itself assumes ' +
+    'numerical accuracy of the similarity solution (checked against SciPy to 1e-6); the model itself assumes ' +
     'steady laminar boundary-layer flow with constant properties, so real plates differ by the property ' +
     'variation and any free-stream disturbance',
 };
@@ -27,7 +27,7 @@ const spec = (name: string, description: string, required: boolean, dflt?: numbe
 });
 const out = (name: string, description: string, unit = '1'): OutputSpec => ({ name, description, unit });
 
-const PR_FORCED: ValidityRange = { input: 'Pr', min: 1e-3, max: 1e4, note: 'range over which the solver is tested' };
+const PR_FORCED: ValidityRange = { input: 'Pr', min: 1e-3, max: 1e4, note: 'range verified against the SciPy reference' };
 const RE_LAMINAR: ValidityRange = {
   input: 'Re',
   max: 5e5,
@@ -140,7 +140,7 @@ export const flatPlateSimilarity: Method = {
   source:
     'Blasius, H. (1908) Grenzschichten in Flüssigkeiten mit kleiner Reibung, Z. Math. Phys. 56, 1–37; ' +
     'Pohlhausen, E. (1921) ZAMM 1, 115–121 (heat transfer and recovery factor); Emmons, H. W. & Leigh, D. C. ' +
-    '(1954) ARC CP 157 (suction and blowing). Checked against the tables in ' +
+    '(1954) ARC CP 157 (suction and blowing). Checked against SciPy (tests/fixtures/similarity_reference.py) and ' +
     'White, Viscous Fluid Flow.',
   version: VERSION,
   evaluate(inputs: Inputs): MethodResult {
@@ -204,7 +204,7 @@ export const wedgeSimilarity: Method = {
   source:
     'Falkner, V. M. & Skan, S. W. (1931) Phil. Mag. 12, 865–896; Hartree, D. R. (1937) Proc. Camb. Phil. Soc. ' +
     '33, 223–239 (wall shear and separation, β = −0.1988); thermal solution as in Eckert (1942). Checked against ' +
-    'the Hartree table in White, Viscous Fluid Flow.',
+    'SciPy (tests/fixtures/similarity_reference.py) and the Hartree table in White, Viscous Fluid Flow.',
   version: VERSION,
   evaluate(inputs: Inputs): MethodResult {
     const v = readNumbers(this, inputs);
@@ -259,12 +259,12 @@ export const verticalPlateSimilarity: Method = {
     out('delta99_x', 'δ/x, where u has fallen to 1 % of its maximum'),
     out('delta99_x_Gr_quarter', 'δ/x·(Gr_x/4)^¼ (independent of Gr)'),
   ],
-  ranges: [RA_LAMINAR, { input: 'Pr', min: 1e-2, max: 1e4, note: 'range over which the solver is tested' }],
+  ranges: [RA_LAMINAR, { input: 'Pr', min: 1e-2, max: 1e4, note: 'range verified against the SciPy reference' }],
   uncertainty: UNCERTAINTY,
   source:
     'Ostrach, S. (1953) An analysis of laminar free-convection flow and heat transfer about a flat plate parallel ' +
-    'to the direction of the generating body force, NACA Report 1111. Checked against ' +
-    "Ostrach's −θ′(0) table.",
+    'to the direction of the generating body force, NACA Report 1111. Checked against SciPy ' +
+    '(tests/fixtures/similarity_reference.py).',
   version: VERSION,
   evaluate(inputs: Inputs): MethodResult {
     const v = readNumbers(this, inputs);
