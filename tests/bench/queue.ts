@@ -10,22 +10,8 @@ import { closeStore, openStore } from '../../shared/db/index.js';
 import { parseQueueUrl, runOnQueue } from '../../shared/queue/index.js';
 import { prepareStudy, runStudyFile } from '../../shared/runner/index.js';
 import { loadStudyFile } from '../../shared/study/index.js';
+import { SIMILARITY_SWEEP_M, similaritySweepStudy } from './runner.js';
 import { fmt, timeAsync, type BenchContext } from './timing.js';
-
-// As in the workers section: enough compute (about 9 s on one thread) that a run's fixed costs
-// (each worker process loading the study and starting its thread on its first job) do not
-// stand in for the scaling.
-const QUEUE_M_COUNT = 2400;
-const QUEUE_STUDY = `name: bench-wedge-queue
-configuration: wedge
-methods: [similarity]
-inputs:
-  Re: 1.0e5
-sweep:
-  over:
-    m: {from: 0, to: 3, count: ${QUEUE_M_COUNT}}
-    Pr: [0.01, 0.7, 7, 100, 1000]
-`;
 
 const BIN = resolve('bin/filmsweep.js');
 
@@ -71,12 +57,12 @@ async function queuedRun(ctx: BenchContext, file: string, processes: number): Pr
 }
 
 export async function benchQueue(ctx: BenchContext) {
-  const file = ctx.study('bench-wedge-queue', QUEUE_STUDY);
+  const file = ctx.study('bench-wedge-queue', similaritySweepStudy('bench-wedge-queue'));
   const local = await timeAsync(() => runStudyFile(file, { db: join(ctx.dir, 'queue-local.db'), workers: 1 }));
   const one = await queuedRun(ctx, file, 1);
   const two = await queuedRun(ctx, file, 2);
   const points = local.value.points_total;
-  console.log(`similarity sweep through the Redis queue, ${QUEUE_M_COUNT} m × 5 Pr, worker processes of 1 thread, one SQLite file:`);
+  console.log(`similarity sweep through the Redis queue, ${SIMILARITY_SWEEP_M} m × 5 Pr, worker processes of 1 thread, one SQLite file:`);
   console.log(`  local pool, 1 thread:   ${fmt(local.seconds)} s = ${fmt(points / local.seconds)} points/s`);
   console.log(`  queue, 1 worker process: ${fmt(one)} s = ${fmt(points / one)} points/s`);
   console.log(`  queue, 2 worker processes: ${fmt(two)} s = ${fmt(points / two)} points/s`);

@@ -63,27 +63,28 @@ export async function benchEndToEnd(ctx: BenchContext) {
   console.log(`  ratio end to end / raw insert: ${fmt(e2eRate / rawRate)} (goal ≥ 0.5)`);
 }
 
-// 2400 m values: about 9 s with one worker, so the fixed start-up of a run (about 0.4 s of
+// 2400 m values: about 9 s on one thread, so the fixed start-up of a run (about 0.4 s of
 // validation, store and worker start that no worker count shortens) does not stand in for
 // the scaling. With 1200 m it capped the ratio near 1.6 on a machine whose two cores scale 1.85×.
-const WORKER_M_COUNT = 2400;
-const WORKER_STUDY = `name: bench-wedge-workers
+// The queue section sweeps the same study.
+export const SIMILARITY_SWEEP_M = 2400;
+export const similaritySweepStudy = (name: string) => `name: ${name}
 configuration: wedge
 methods: [similarity]
 inputs:
   Re: 1.0e5
 sweep:
   over:
-    m: {from: 0, to: 3, count: ${WORKER_M_COUNT}}
+    m: {from: 0, to: 3, count: ${SIMILARITY_SWEEP_M}}
     Pr: [0.01, 0.7, 7, 100, 1000]
 `;
 
 export async function benchWorkers(ctx: BenchContext) {
-  const file = ctx.study('bench-wedge-workers', WORKER_STUDY);
+  const file = ctx.study('bench-wedge-workers', similaritySweepStudy('bench-wedge-workers'));
   const one = await timeAsync(() => runStudyFile(file, { db: join(ctx.dir, 'w1.db'), workers: 1 }));
   const two = await timeAsync(() => runStudyFile(file, { db: join(ctx.dir, 'w2.db'), workers: 2 }));
   const ceiling = await twoThreadCeiling();
-  console.log(`similarity sweep, ${WORKER_M_COUNT} m × 5 Pr (each m a new momentum solve):`);
+  console.log(`similarity sweep, ${SIMILARITY_SWEEP_M} m × 5 Pr (each m a new momentum solve):`);
   console.log(`  1 worker:  ${fmt(one.seconds)} s`);
   console.log(`  2 workers: ${fmt(two.seconds)} s`);
   console.log(`  speed-up 2 vs 1 workers: ${fmt(one.seconds / two.seconds)}× (goal ≥ 1.7)`);
