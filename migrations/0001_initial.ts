@@ -18,7 +18,7 @@
 // what JSON.stringify wrote (checked on 2e5 random doubles). On PostgreSQL the same
 // columns are `json`, which keeps the text as written (shared/db/dialect.ts).
 import { sql, type Kysely } from 'kysely';
-import { ddl } from '../shared/db/dialect.js';
+import { ddl } from './ddl.js';
 
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema

@@ -10,7 +10,8 @@
 // text), so exports read back what the runner wrote, byte for byte, on both stores.
 import type BetterSqlite3 from 'better-sqlite3';
 import type pg from 'pg';
-import { PostgresAdapter, sql, type ColumnDefinitionBuilder, type CreateTableBuilder, type Kysely, type RawBuilder } from 'kysely';
+import { sql, type Kysely, type RawBuilder } from 'kysely';
+import { ddl, isPostgres } from '../../migrations/ddl.js';
 import type { BatchWriter, EncodedBatch, WrittenCounts } from './batch-writer.js';
 import { retryBusy, retryBusySync } from './busy.js';
 
@@ -91,32 +92,9 @@ export interface Dialect {
   nullsLow(dir: 'asc' | 'desc'): string;
 }
 
-export function isPostgres(db: Kysely<any>): boolean {
-  return db.getExecutor().adapter instanceof PostgresAdapter;
-}
-
-/** For migrations: DDL pieces by dialect. */
-export const ddl = {
-  jsonType(db: Kysely<any>): 'blob' | 'json' {
-    return isPostgres(db) ? 'json' : 'blob';
-  },
-  /** An integer key the database numbers itself (SQLite AUTOINCREMENT, PostgreSQL identity). */
-  autoId(db: Kysely<any>): (c: ColumnDefinitionBuilder) => ColumnDefinitionBuilder {
-    return isPostgres(db) ? (c) => c.primaryKey().generatedByDefaultAsIdentity() : (c) => c.primaryKey().autoIncrement();
-  },
-  /** Type of a row-numbering key: SQLite's rowid is `integer` (64-bit); PostgreSQL needs `bigint`. */
-  rowIdType(db: Kysely<any>): 'integer' | 'bigint' {
-    return isPostgres(db) ? 'bigint' : 'integer';
-  },
-  /** An integer key that is SQLite's rowid (no AUTOINCREMENT table), an identity on PostgreSQL. */
-  rowId(db: Kysely<any>): (c: ColumnDefinitionBuilder) => ColumnDefinitionBuilder {
-    return isPostgres(db) ? (c) => c.primaryKey().generatedByDefaultAsIdentity() : (c) => c.primaryKey();
-  },
-  /** SQLite's WITHOUT ROWID (a table clustered on its primary key); PostgreSQL has no such thing. */
-  clustered<T extends string, C extends string>(db: Kysely<any>, table: CreateTableBuilder<T, C>): CreateTableBuilder<T, C> {
-    return isPostgres(db) ? table : table.modifyEnd(sql`without rowid`);
-  },
-};
+// The DDL helpers live in migrations/ddl.ts (migrations import only that, never
+// shared/db); re-exported here for code that already imports them from the dialect.
+export { ddl, isPostgres };
 
 /** Kysely fragment of a JSON column's text, for typed queries. */
 export function jsonTextSql(db: Kysely<any>, column: string): RawBuilder<string> {

@@ -7,7 +7,7 @@
 import { Migrator, sql, type Kysely, type MigrationResult } from 'kysely';
 import { migrations } from '../../migrations/index.js';
 import { retryBusy } from './busy.js';
-import { isPostgres } from './dialect.js';
+import { isPostgres } from '../../migrations/ddl.js';
 
 function migrator(db: Kysely<any>): Migrator {
   return new Migrator({
