@@ -4,9 +4,9 @@ import type { AddressInfo } from 'node:net';
 import { closeStore, openStore } from '../shared/db/index.js';
 import { createApp, type FilmsweepApp } from './app.js';
 import type { ServerOptions } from './context.js';
+import { DEFAULT_HOST, DEFAULT_PORT } from './defaults.js';
 
-export const DEFAULT_PORT = 4173;
-export const DEFAULT_HOST = '127.0.0.1';
+export { DEFAULT_HOST, DEFAULT_PORT };
 
 export interface RunningServer {
   url: string;

@@ -3,23 +3,11 @@
 import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import type { Command } from 'commander';
-import {
-  compareWithBaseline,
-  evaluateChecks,
-  junitXml,
-  makeBaseline,
-  outcomeCases,
-  parseBaseline,
-  serializeBaseline,
-  type JUnitSuite,
-} from '../../shared/check/index.js';
-import { closeStore, getRunRows, openStore, resolveDbPath } from '../../shared/db/index.js';
+import type { JUnitSuite } from '../../shared/check/index.js';
 import { InputError } from '../../shared/physics/types.js';
-import { prepareStudy, runStudy, type PreparedStudy } from '../../shared/runner/index.js';
-import { loadStudyFile } from '../../shared/study/index.js';
+import type { PreparedStudy } from '../../shared/runner/index.js';
 import { EXIT, ExitError } from '../errors.js';
-import { writeFileAtomic } from '../write-file.js';
-import { parseWholeNumber, sweepWithReporting } from './run.js';
+import { parseWholeNumber } from '../options.js';
 
 interface CheckOptions {
   baseline?: string;
@@ -56,6 +44,15 @@ export function register(program: Command) {
     .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--max-points <n>', 'refuse a study with more points than this', parseWholeNumber)
     .action(async (files: string[], opts: CheckOptions) => {
+      // Each command loads its dependencies when it runs, not with every `filmsweep` start.
+      const { compareWithBaseline, evaluateChecks, junitXml, makeBaseline, outcomeCases, parseBaseline, serializeBaseline } = await import(
+        '../../shared/check/index.js'
+      );
+      const { closeStore, getRunRows, openStore, resolveDbPath } = await import('../../shared/db/index.js');
+      const { prepareStudy, runStudy } = await import('../../shared/runner/index.js');
+      const { loadStudyFile } = await import('../../shared/study/index.js');
+      const { writeFileAtomic } = await import('../write-file.js');
+      const { sweepWithReporting } = await import('../sweep-report.js');
       // Validate every file (and every baseline) before running anything.
       const prepared = files.map((file) => prepareStudy(loadStudyFile(file, { maxPoints: opts.maxPoints })));
       const baselines = prepared.map((p) => {

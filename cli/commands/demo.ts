@@ -5,13 +5,8 @@ import { readdirSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
-import { closeStore, isDatabaseUrl, listRuns, openStore, redactUrl, resolveDbPath } from '../../shared/db/index.js';
-import { ROLES } from '../../shared/db/schema.js';
-import { createUser, listUsers } from '../../shared/db/users.js';
-import { prepareStudy, runStudy } from '../../shared/runner/index.js';
-import { loadStudyFile } from '../../shared/study/index.js';
-import { DEFAULT_HOST, DEFAULT_PORT, startServer } from '../../server/index.js';
-import { parseWholeNumber } from './run.js';
+import { DEFAULT_HOST, DEFAULT_PORT } from '../../server/defaults.js';
+import { parseWholeNumber } from '../options.js';
 
 const studiesDir = fileURLToPath(new URL('../../../studies/', import.meta.url));
 // Invented accounts on a reserved domain (RFC 2606): no real person or company.
@@ -24,6 +19,12 @@ export function register(program: Command) {
     .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('-p, --port <port>', 'port to listen on', parseWholeNumber, DEFAULT_PORT)
     .action(async (opts: { db?: string; port: number }) => {
+      const { closeStore, isDatabaseUrl, listRuns, openStore, redactUrl, resolveDbPath } = await import('../../shared/db/index.js');
+      const { ROLES } = await import('../../shared/db/schema.js');
+      const { createUser, listUsers } = await import('../../shared/db/users.js');
+      const { prepareStudy, runStudy } = await import('../../shared/runner/index.js');
+      const { loadStudyFile } = await import('../../shared/study/index.js');
+      const { startServer } = await import('../../server/index.js');
       const db = resolveDbPath(opts.db);
       const files = readdirSync(studiesDir).filter((f) => f.endsWith('.yaml')).sort().map((f) => join(studiesDir, f));
       const store = await openStore(db);

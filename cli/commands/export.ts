@@ -1,9 +1,7 @@
 // `filmsweep export RUN|latest --format csv|json|md|tex|xlsx [--out FILE]`.
 import { Option, type Command } from 'commander';
-import { closeStore, getRunRows, openStore, resolveDbPath, resolveRunRef } from '../../shared/db/index.js';
-import { exportFormats, exportRun, type ExportFormat } from '../../shared/export/index.js';
+import { exportFormats, type ExportFormat } from '../../shared/export/types.js';
 import { InputError } from '../../shared/physics/types.js';
-import { writeFileAtomic } from '../write-file.js';
 
 export function register(program: Command) {
   program
@@ -18,6 +16,9 @@ export function register(program: Command) {
       if (opts.format === 'xlsx' && !opts.out && process.stdout.isTTY) {
         throw new InputError('--format xlsx writes a binary file: give --out FILE.xlsx or redirect standard output');
       }
+      const { closeStore, getRunRows, openStore, resolveDbPath, resolveRunRef } = await import('../../shared/db/index.js');
+      const { exportRun } = await import('../../shared/export/index.js');
+      const { writeFileAtomic } = await import('../write-file.js');
       const store = await openStore(resolveDbPath(opts.db), { create: false });
       try {
         const run = await resolveRunRef(store, ref);

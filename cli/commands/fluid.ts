@@ -1,8 +1,6 @@
 // `filmsweep fluid NAME --temperature T`: a fluid's properties at one temperature.
 import type { Command } from 'commander';
-import { getFluid } from '../../shared/physics/fluids/index.js';
 import { formatNumber, printJson, table } from '../format.js';
-import { parseTemperature } from '../values.js';
 
 const rows: [key: string, label: string, unit: string][] = [
   ['rho', 'density ρ', 'kg/m³'],
@@ -22,7 +20,9 @@ export function register(program: Command) {
     .argument('<name>', 'fluid name: air, water, engine-oil, ethylene-glycol, …')
     .requiredOption('-t, --temperature <T>', 'temperature: kelvin, or with units such as "80 degC"')
     .option('--json', 'print JSON: {fluid, temperature, rho, cp, mu, k, nu, alpha, Pr, beta}')
-    .action((name: string, opts: { temperature: string; json?: boolean }) => {
+    .action(async (name: string, opts: { temperature: string; json?: boolean }) => {
+      const { getFluid } = await import('../../shared/physics/fluids/index.js');
+      const { parseTemperature } = await import('../values.js');
       const fluid = getFluid(name);
       const T = parseTemperature(opts.temperature);
       const p = fluid.properties(T);

@@ -2,7 +2,6 @@
 import { writeFileSync } from 'node:fs';
 import type { Command } from 'commander';
 import { InputError } from '../../shared/physics/types.js';
-import { starterStudy } from '../../shared/study/starter.js';
 
 export function register(program: Command) {
   program
@@ -10,7 +9,8 @@ export function register(program: Command) {
     .description('write a commented starter study file NAME.yaml to edit')
     .argument('<name>', 'study name, a slug such as glycol-heater-tube')
     .option('-o, --out <file>', 'file to write instead of NAME.yaml')
-    .action((name: string, opts: { out?: string }) => {
+    .action(async (name: string, opts: { out?: string }) => {
+      const { starterStudy } = await import('../../shared/study/starter.js');
       const text = starterStudy(name);
       const file = opts.out ?? `${name}.yaml`;
       try {

@@ -1,7 +1,7 @@
 // `filmsweep list`: the runs in the database, newest first.
 import { existsSync } from 'node:fs';
 import type { Command } from 'commander';
-import { closeStore, isDatabaseUrl, listRuns, openStore, resolveDbPath } from '../../shared/db/index.js';
+import { isDatabaseUrl, resolveDbPath } from '../../shared/db/path.js';
 import { printJson, table } from '../format.js';
 
 export function register(program: Command) {
@@ -19,6 +19,7 @@ export function register(program: Command) {
         else process.stdout.write(`no runs yet (no database at ${path})\n`);
         return;
       }
+      const { closeStore, listRuns, openStore } = await import('../../shared/db/index.js');
       const store = await openStore(path);
       try {
         const runs = await listRuns(store, { study: opts.study });

@@ -1,7 +1,5 @@
 // `filmsweep methods`: the catalogue — methods, inputs, ranges, uncertainty, sources.
 import type { Command } from 'commander';
-import { describeMethod, methods, methodsFor, requireConfiguration } from '../../shared/physics/catalogue.js';
-import { configurations } from '../../shared/physics/configurations.js';
 import type { ValidityRange } from '../../shared/physics/types.js';
 import { formatNumber, printJson } from '../format.js';
 
@@ -17,7 +15,9 @@ export function register(program: Command) {
     .description('list the catalogue: methods by configuration, with inputs, validity ranges, uncertainty and source')
     .option('-c, --configuration <id>', 'only this configuration')
     .option('--json', 'print JSON: {"configurations": [...], "methods": [...]}')
-    .action((opts: { configuration?: string; json?: boolean }) => {
+    .action(async (opts: { configuration?: string; json?: boolean }) => {
+      const { describeMethod, methods, methodsFor, requireConfiguration } = await import('../../shared/physics/catalogue.js');
+      const { configurations } = await import('../../shared/physics/configurations.js');
       const list = opts.configuration ? (requireConfiguration(opts.configuration), methodsFor(opts.configuration)) : methods;
       const confs = configurations.filter((c) => !opts.configuration || c.id === opts.configuration);
       if (opts.json) {

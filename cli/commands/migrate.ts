@@ -1,7 +1,6 @@
 // `filmsweep migrate`: bring the database schema up to date (every command also does so
 // when it opens the database; this one says what it applied).
 import type { Command } from 'commander';
-import { closeStore, migrateToLatest, openStore, resolveDbPath } from '../../shared/db/index.js';
 
 export function register(program: Command) {
   program
@@ -9,6 +8,7 @@ export function register(program: Command) {
     .description('create the database or apply pending schema migrations, and print what was applied')
     .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .action(async (opts: { db?: string }) => {
+      const { closeStore, migrateToLatest, openStore, resolveDbPath } = await import('../../shared/db/index.js');
       const path = resolveDbPath(opts.db);
       const store = await openStore(path, { migrate: false });
       try {

@@ -2,7 +2,6 @@
 // and every result) to the team's dashboard, as a new run there. Exit 1 when the server
 // refuses (its message is printed), 2 when it cannot be reached.
 import type { Command } from 'commander';
-import { closeStore, getRunRows, getRunSource, openStore, resolveDbPath, resolveRunRef } from '../../shared/db/index.js';
 import { InputError } from '../../shared/physics/types.js';
 import { EXIT, ExitError } from '../errors.js';
 
@@ -23,6 +22,7 @@ export function register(program: Command) {
       } catch {
         throw new InputError(`--server: '${opts.server}' is not a URL`);
       }
+      const { closeStore, getRunRows, getRunSource, openStore, resolveDbPath, resolveRunRef } = await import('../../shared/db/index.js');
       const store = await openStore(resolveDbPath(opts.db));
       let body: string;
       let runId: number;

@@ -1,10 +1,9 @@
 // `filmsweep resume RUN`: finish an interrupted (or killed) run from its stored study
 // version, computing only the points that have no results yet.
 import type { Command } from 'commander';
-import { closeStore, openStore, resolveDbPath, resolveRunRef } from '../../shared/db/index.js';
-import { defaultWorkers, resumeRun } from '../../shared/runner/index.js';
-import { InputError } from '../../shared/physics/types.js';
-import { parseWholeNumber, queueNotice, sweepWithReporting, type SweepCommandOptions } from './run.js';
+import { defaultWorkers } from '../../shared/runner/environment.js';
+import { parseWholeNumber } from '../options.js';
+import type { SweepCommandOptions } from '../sweep-report.js';
 
 export function register(program: Command) {
   program
@@ -18,7 +17,11 @@ export function register(program: Command) {
     .option('--queue <url>', 'put the missing batches on the Redis queue of `filmsweep worker` processes and follow the run')
     .option('--json', 'print only one JSON document on stdout, shaped as for `run --json`')
     .action(async (ref: string, opts: SweepCommandOptions & { db?: string; force?: boolean }) => {
-      // BullMQ is loaded only with --queue, not by every `filmsweep` start.
+      const { closeStore, openStore, resolveDbPath, resolveRunRef } = await import('../../shared/db/index.js');
+      const { resumeRun } = await import('../../shared/runner/index.js');
+      const { InputError } = await import('../../shared/physics/types.js');
+      const { queueNotice, sweepWithReporting } = await import('../sweep-report.js');
+      // BullMQ is loaded only with --queue.
       const queue = opts.queue === undefined ? undefined : await import('../../shared/queue/index.js');
       const target = opts.queue === undefined ? undefined : queue!.parseQueueUrl(opts.queue);
       if (target && opts.workers !== undefined) throw new InputError('--workers: with --queue, each `filmsweep worker` sets its own threads');

@@ -1,8 +1,8 @@
 // `filmsweep serve [--port P] [--host H] [--db FILE|URL] [--dev]`: the dashboard and its API.
 import { InvalidArgumentError, type Command } from 'commander';
-import { redactUrl, resolveDbPath } from '../../shared/db/index.js';
-import { DEFAULT_HOST, DEFAULT_PORT, startServer } from '../../server/index.js';
-import { parseWholeNumber } from './run.js';
+import { redactUrl, resolveDbPath } from '../../shared/db/path.js';
+import { DEFAULT_HOST, DEFAULT_PORT } from '../../server/defaults.js';
+import { parseWholeNumber } from '../options.js';
 
 function parsePort(raw: string): number {
   const n = Number(raw);
@@ -24,6 +24,8 @@ export function register(program: Command) {
     .option('--max-points <n>', 'refuse uploaded studies with more points than this (default 1,000,000)', parseWholeNumber)
     .action(
       async (opts: { port: number; host: string; db?: string; dev?: boolean; trustProxy?: number; publicUrl?: string; workers?: number; maxPoints?: number }) => {
+        // The server (Express and the rest) is loaded only when it is started.
+        const { startServer } = await import('../../server/index.js');
         const server = await startServer({
           db: resolveDbPath(opts.db),
           port: opts.port,

@@ -1,16 +1,7 @@
 // `filmsweep show RUN`: one run's facts and its per-method summary. Also the summary
 // table `run` and `resume` print when a run ends.
 import type { Command } from 'commander';
-import {
-  closeStore,
-  getRunDetails,
-  getRunSummary,
-  openStore,
-  resolveDbPath,
-  resolveRunRef,
-  type MethodSummary,
-  type RunInfo,
-} from '../../shared/db/index.js';
+import type { MethodSummary, RunInfo } from '../../shared/db/index.js';
 import { formatNumber, printJson, table } from '../format.js';
 
 function useColor(stream: NodeJS.WriteStream): boolean {
@@ -57,6 +48,7 @@ export function register(program: Command) {
     .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
     .option('--json', 'print JSON: {"run": {...}, "error": ..., "summary": [...]}')
     .action(async (ref: string, opts: { db?: string; json?: boolean }) => {
+      const { closeStore, getRunDetails, getRunSummary, openStore, resolveDbPath, resolveRunRef } = await import('../../shared/db/index.js');
       const store = await openStore(resolveDbPath(opts.db), { create: false });
       try {
         const run = await resolveRunRef(store, ref);

@@ -1,9 +1,7 @@
 // `filmsweep solve CONFIGURATION`: one point without a study file, every applicable
 // method side by side (or only --method), in the row format of exports.
 import type { Command } from 'commander';
-import { missingInputs, solvePoint } from '../../shared/physics/engine.js';
 import { printJson, table } from '../format.js';
-import { parseSets } from '../values.js';
 
 const collect = (v: string, acc: string[]) => [...acc, v];
 
@@ -23,7 +21,9 @@ export function register(program: Command) {
         '  filmsweep solve pipe --fluid water --set diameter="25 mm" --set velocity="1 m/s" \\\n' +
         '      --set fluid_temperature="40 degC" --set surface_temperature="60 degC" --set length="2 m"',
     )
-    .action((configuration: string, opts: { method: string[]; set: string[]; fluid?: string; profiles?: boolean; json?: boolean }) => {
+    .action(async (configuration: string, opts: { method: string[]; set: string[]; fluid?: string; profiles?: boolean; json?: boolean }) => {
+      const { missingInputs, solvePoint } = await import('../../shared/physics/engine.js');
+      const { parseSets } = await import('../values.js');
       const inputs = parseSets(opts.set);
       if (opts.profiles) inputs.profiles = true;
       const methods = opts.method.flatMap((m) => m.split(',')).filter(Boolean);

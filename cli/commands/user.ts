@@ -2,9 +2,8 @@
 // the dashboard (the first lead is made this way; later ones can be invited).
 import { randomBytes } from 'node:crypto';
 import { Option, type Command } from 'commander';
-import { closeStore, openStore, resolveDbPath } from '../../shared/db/index.js';
 import { ROLES, type Role } from '../../shared/db/schema.js';
-import { DuplicateUserError, MIN_PASSWORD_LENGTH, createUser } from '../../shared/db/users.js';
+import { MIN_PASSWORD_LENGTH } from '../../shared/db/users.js';
 import { InputError } from '../../shared/physics/types.js';
 
 export function register(program: Command) {
@@ -23,6 +22,8 @@ export function register(program: Command) {
         throw new InputError(`--password: at least ${MIN_PASSWORD_LENGTH} characters`);
       }
       const password = opts.password ?? randomBytes(12).toString('base64url');
+      const { closeStore, openStore, resolveDbPath } = await import('../../shared/db/index.js');
+      const { DuplicateUserError, createUser } = await import('../../shared/db/users.js');
       const store = await openStore(resolveDbPath(opts.db));
       try {
         const made = await createUser(store, { email, role: opts.role, name: opts.name, password });

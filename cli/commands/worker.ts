@@ -4,12 +4,11 @@
 // SIGINT/SIGTERM finishes the jobs in hand first (a second signal quits at once, and
 // those jobs go back to the queue once their lock expires).
 import { InvalidArgumentError, type Command } from 'commander';
-import { closeStore, openStore, resolveDbPath } from '../../shared/db/index.js';
 import { DEFAULT_LOCK_DURATION_MS, DEFAULT_MAX_STALLED, DEFAULT_STALLED_INTERVAL_MS } from '../../shared/queue/defaults.js';
-import { defaultWorkers } from '../../shared/runner/index.js';
+import { defaultWorkers } from '../../shared/runner/environment.js';
 import type { QueueWorkerHandle } from '../../shared/queue/index.js';
 import { EXIT } from '../errors.js';
-import { parseWholeNumber } from './run.js';
+import { parseWholeNumber } from '../options.js';
 
 interface WorkerCommandOptions {
   queue: string;
@@ -49,8 +48,9 @@ export function register(program: Command) {
     )
     .option('--max-stalled <n>', `times one batch may be taken back from a dead worker before it fails (default ${DEFAULT_MAX_STALLED})`, parseWholeNumber)
     .action(async (opts: WorkerCommandOptions) => {
-      // BullMQ is loaded only by the commands that use it, not by every `filmsweep` start.
+      // BullMQ (and the rest) is loaded only by the commands that use it, not by every `filmsweep` start.
       const { parseQueueUrl, startQueueWorker } = await import('../../shared/queue/index.js');
+      const { closeStore, openStore, resolveDbPath } = await import('../../shared/db/index.js');
       const target = parseQueueUrl(opts.queue);
       const store = await openStore(resolveDbPath(opts.db));
       const workers = opts.workers ?? defaultWorkers();

@@ -1,6 +1,11 @@
 // Facts about where a run happens: git commit of the study file, host, live processes.
 import { execFileSync } from 'node:child_process';
-import { hostname } from 'node:os';
+import { availableParallelism, hostname } from 'node:os';
+
+/** Worker threads when none are asked for: one per CPU. */
+export function defaultWorkers(): number {
+  return availableParallelism();
+}
 
 /** `git rev-parse HEAD` in the study file's folder; null outside a repository or without git. */
 export function gitCommit(folder: string): string | null {

@@ -4,7 +4,6 @@ export {
   runStudy,
   resumeRun,
   runStudyFile,
-  defaultWorkers,
   type PreparedStudy,
   type RunOptions,
   type ResumeOptions,
@@ -13,6 +12,6 @@ export {
   type RunProgress,
 } from './run-study.js';
 export { BatchSizer, TARGET_BATCH_MS, MIN_BATCH, MAX_BATCH } from './batches.js';
-export { gitCommit, hostName, processAlive } from './environment.js';
+export { defaultWorkers, gitCommit, hostName, processAlive } from './environment.js';
 export { workerFile } from './pool.js';
 export { captureInterrupts, type InterruptHandle } from './interrupts.js';

@@ -3,7 +3,6 @@
 // thread in its own transaction, and end the run done, failed or interrupted. `resumeRun` finishes an unfinished run from its
 // stored study version, computing only the points that have no results yet.
 import { dirname, resolve } from 'node:path';
-import os from 'node:os';
 import pLimit from 'p-limit';
 import { getMethod, methodsFor } from '../physics/catalogue.js';
 import { compileSolver, type SolvePlan } from '../physics/engine.js';
@@ -23,7 +22,7 @@ import {
   type Store,
 } from '../db/index.js';
 import { BatchSizer } from './batches.js';
-import { gitCommit, hostName, processAlive } from './environment.js';
+import { defaultWorkers, gitCommit, hostName, processAlive } from './environment.js';
 import { createPool } from './pool.js';
 import { toRanges } from './batch-task.js';
 
@@ -76,10 +75,6 @@ export interface RunOutcome {
   flagged: number;
   seconds: number;
   error?: string;
-}
-
-export function defaultWorkers(): number {
-  return os.availableParallelism();
 }
 
 function methodVersions(plan: SolvePlan): MethodVersion[] {

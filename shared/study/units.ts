@@ -1,8 +1,24 @@
 // Values with units in study files ("25 mm", "80 degC", "1.5 L/min"), converted to the
 // SI unit of the named quantity with mathjs. A problem is thrown as a UnitError whose
 // message the study parser places at the value's line and column.
-import { unit, type Unit } from 'mathjs';
+//
+// mathjs is loaded on the first value that has units, not with this module: its ES module
+// build takes 0.5–1 s to load, which every `filmsweep` command and every dimensionless
+// study would pay for nothing. Its single-file build (`mathjs/lib/browser/math.js`, the
+// same library, about 0.1 s) is loaded synchronously through require.
+import { createRequire } from 'node:module';
+import type { Unit } from 'mathjs';
 import { findQuantity, type QuantitySpec } from '../physics/quantities.js';
+
+let mathjs: typeof import('mathjs') | undefined;
+
+/** mathjs's `unit('25 mm')` or `unit(0, 'degC')`. */
+function unit(text: string): Unit;
+function unit(value: number, name: string): Unit;
+function unit(...args: [string] | [number, string]): Unit {
+  mathjs ??= createRequire(import.meta.url)('mathjs/lib/browser/math.js') as typeof import('mathjs');
+  return (mathjs.unit as (...a: unknown[]) => Unit)(...args);
+}
 
 export class UnitError extends Error {
   constructor(message: string) {

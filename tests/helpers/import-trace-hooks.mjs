@@ -1,0 +1,14 @@
+// Module loader hooks of import-trace.mjs (they run on the loader's own thread).
+import { appendFileSync } from 'node:fs';
+
+let file;
+
+export function initialize(data) {
+  file = data?.file;
+}
+
+export async function resolve(specifier, context, next) {
+  const resolved = await next(specifier, context);
+  if (file && !resolved.url.startsWith('node:')) appendFileSync(file, `${resolved.url}\n`);
+  return resolved;
+}
