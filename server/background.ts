@@ -3,7 +3,6 @@
 // scheduling batches, lets those in flight commit, and waits for every pool to close;
 // such a run ends `interrupted` and `filmsweep resume` can finish it.
 import { getUser } from '../shared/db/users.js';
-import { ensureResultsCache } from '../shared/db/results-cache.js';
 import { setRunStartedBy } from '../shared/db/studies.js';
 import type { Store } from '../shared/db/store.js';
 import { runStudy, type PreparedStudy, type RunOutcome } from '../shared/runner/index.js';
@@ -61,12 +60,6 @@ export class BackgroundRuns {
   }
 
   private async finished(outcome: RunOutcome, userId: number, linkBase: string) {
-    // Build the results cache now rather than on someone's first query of a large run.
-    try {
-      await ensureResultsCache(this.store, outcome.id);
-    } catch (e) {
-      this.log(e);
-    }
     const user = await getUser(this.store, userId);
     if (!user || user.disabled) return;
     const base = this.settings.publicUrl ?? linkBase;

@@ -3,7 +3,7 @@
 // through the batch writer, then the run's final status; a push that fails half-way
 // removes its run again.
 import { z } from 'zod';
-import { createBatchWriter, createRun, type Store } from '../shared/db/index.js';
+import { createBatchWriter, createRun, deleteRun, type Store } from '../shared/db/index.js';
 import { getDashboardRun, type DashboardRun } from '../shared/db/studies.js';
 import { sha256Hex } from '../shared/study/sha256.js';
 import { HttpError } from './http-error.js';
@@ -89,8 +89,8 @@ export async function pushRun(store: Store, body: PushBody, userId: number): Pro
       .where('id', '=', runId)
       .execute();
   } catch (e) {
-    // Leave no half-pushed run behind (its points and results go with it: on delete cascade).
-    await store.db.deleteFrom('runs').where('id', '=', runId).execute();
+    // Leave no half-pushed run behind (its results table goes with it).
+    await deleteRun(store, runId);
     throw e;
   }
   return (await getDashboardRun(store, runId))!;

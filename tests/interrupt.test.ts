@@ -10,6 +10,7 @@ import { join, resolve } from 'node:path';
 import BetterSqlite3 from 'better-sqlite3';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeStore, getRunRows, listRuns, openStore } from '../shared/db/index.js';
+import { runTableName } from '../shared/db/result-table.js';
 
 // FILMSWEEP_TEST_BIN points the tests at another build of the command (default: this one).
 const BIN = resolve(process.env.FILMSWEEP_TEST_BIN ?? 'bin/filmsweep.js');
@@ -211,7 +212,7 @@ describe('concurrency and validation', () => {
             | { id: number; points_done: number; results_count: number }
             | undefined;
           if (!run) return undefined;
-          const results = reader.prepare('select count(*) from results where run_id = ?').pluck().get(run.id) as number;
+          const results = reader.prepare(`select count(*) from ${runTableName(run.id)}`).pluck().get() as number;
           return { ...run, results };
         })();
         if (snap) {
@@ -265,14 +266,15 @@ async function listRunsOf(db: string) {
 
 function countRows(db: string, runId: number): { points: number; results: number; distinct: number } {
   const c = new BetterSqlite3(db, { readonly: true });
+  const table = runTableName(runId);
   try {
     return c
       .prepare(
-        `select (select count(*) from points where run_id = $id) points,
-                (select count(*) from results where run_id = $id) results,
-                (select count(*) from (select distinct point_idx, method_idx from results where run_id = $id)) "distinct"`,
+        `select (select count(*) from ${table} where method_idx = 0) points,
+                (select count(*) from ${table}) results,
+                (select count(*) from (select distinct seq from ${table})) "distinct"`,
       )
-      .get({ id: runId }) as { points: number; results: number; distinct: number };
+      .get() as { points: number; results: number; distinct: number };
   } finally {
     c.close();
   }

@@ -7,6 +7,7 @@ import { join } from 'node:path';
 import { Queue } from 'bullmq';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeStore, getRunRows, openStore, type Store } from '../shared/db/index.js';
+import { runTableName } from '../shared/db/result-table.js';
 import { BATCH_JOB, parseQueueUrl, resumeOnQueue, runOnQueue, startQueueWorker, type QueueTarget } from '../shared/queue/index.js';
 import { prepareStudy, runStudy } from '../shared/runner/index.js';
 import { parseStudy } from '../shared/study/index.js';
@@ -122,7 +123,7 @@ describe.skipIf(!REDIS).each(STORES)(`queue producer and consumer in one process
       await worker.close();
     }
     expect(lines.some((l) => l.includes(`${BATCH} already stored`))).toBe(true);
-    const n = await store.db.selectFrom('results').select((eb) => eb.fn.countAll<number>().as('n')).where('run_id', '=', interruptedRun).executeTakeFirstOrThrow();
+    const [n] = await store.dialect.all<{ n: unknown }>(`select count(*) as n from ${runTableName(interruptedRun)}`);
     expect(Number(n.n)).toBe(BATCH * METHODS);
   });
 

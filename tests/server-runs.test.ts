@@ -1,7 +1,7 @@
 // Studies, runs and their data through the API of a real server: upload (valid, invalid,
 // too large, wrong type, too many points), the background run and its mail, results paging
-// / sorting / filtering checked against getRunRows (both off the JSONB columns and off the
-// results cache), chart downsampling, measurements and their overlay MAD, comparison,
+// / sorting / filtering checked against getRunRows (both off the run's table and off the
+// JSON columns of a run stored before run tables), chart downsampling, measurements and their overlay MAD, comparison,
 // reference marks, exports, audit, and `filmsweep push` end to end with the compiled CLI;
 // on SQLite and, when FILMSWEEP_TEST_PG_URL is set, on PostgreSQL.
 import { execFile } from 'node:child_process';
@@ -11,7 +11,8 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { getRunRows } from '../shared/db/index.js';
-import { buildResultsCache, currentCache, dropResultsCache } from '../shared/db/results-cache.js';
+import { hasRunTable, runTableName } from '../shared/db/result-table.js';
+import { storeAsBeforeRunTables } from './helpers/legacy.js';
 import { CAUTION } from '../shared/export/index.js';
 import { solvePoint, type ResultRow } from '../shared/physics/engine.js';
 import type { Inputs } from '../shared/physics/types.js';
@@ -183,11 +184,10 @@ describe('results: paging, sorting, filtering', () => {
     { label: 'not flagged, deep page', qs: 'flagged=no&sort=Pr&order=desc', q: { sort: 'Pr', order: 'desc', flagged: 'no' }, page: 3, pageSize: 7 },
   ];
 
-  for (const viaCache of [false, true]) {
-    it(`matches getRunRows ${viaCache ? 'through the results cache' : 'straight off the JSONB columns'}`, async () => {
-      if (viaCache) await buildResultsCache(s.store, runA);
-      else await dropResultsCache(s.store, runA);
-      expect(Boolean(await currentCache(s.store, runA))).toBe(viaCache);
+  for (const stored of ['table', 'json'] as const) {
+    it(`matches getRunRows ${stored === 'table' ? "off the run's table" : 'off the JSON columns of a run stored before run tables'}`, async () => {
+      if (stored === 'json') await storeAsBeforeRunTables(s.store, runA);
+      expect(await hasRunTable(s.store, runA)).toBe(stored === 'table');
       const rows = await expectedRows(runA);
       expect(rows.some((r) => r.flags.length > 0)).toBe(true);
       for (const c of cases) {
@@ -447,7 +447,7 @@ describe('shutdown', () => {
     const after = await getRun(store, id);
     expect(after!.status).toBe('interrupted');
     expect(after!.points_done).toBeLessThan(1_000_000);
-    expect(await countOf(store, 'select count(*) as n from points where run_id = ?', id)).toBe(after!.points_done);
+    expect(await countOf(store, `select count(*) as n from ${runTableName(id)} where method_idx = 0`)).toBe(after!.points_done);
     // A new upload is refused while shutting down.
     expect((await c.json('POST', '/api/studies', { form: yamlForm(PIPE('late')) })).status).toBe(503);
     await own.close();

@@ -8,6 +8,7 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { closeStore, getRun, getRunRows, openStore, resolveRunRef } from '../shared/db/index.js';
+import { runTableName } from '../shared/db/result-table.js';
 import { PG_URL, createTestDatabase, type TestDatabase } from './helpers/stores.js';
 
 const BIN = resolve(process.env.FILMSWEEP_TEST_BIN ?? 'bin/filmsweep.js');
@@ -111,7 +112,7 @@ sweep:
       expect(killed.status).toBe('running'); // nobody could mark it
       expect(killed.points_done).toBeLessThan(POINTS);
       // The counters match the committed rows exactly: batches are all or nothing.
-      const [{ n }] = await store.dialect.all<{ n: number }>('select count(*) as n from results where run_id = ?', [runId]);
+      const [{ n }] = await store.dialect.all<{ n: number }>(`select count(*) as n from ${runTableName(runId!)}`);
       expect(Number(n)).toBe(killed.results_count);
 
       const resumed = cli(['resume', String(runId), '--db', pg.location, '--workers', '2']);

@@ -1,6 +1,8 @@
 // The store on its own, on SQLite and (when FILMSWEEP_TEST_PG_URL is set) PostgreSQL:
 // schema and migrations, run bookkeeping, the batch writer's all-or-nothing and idempotent
-// transactions, and the queries the CLI and the dashboard read with.
+// transactions into each run's table (exact round trip of every value, key order and kind;
+// new names in later batches, also from two connections at once), and the queries the CLI
+// and the dashboard read with.
 import { existsSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { Migrator, NO_MIGRATIONS } from 'kysely';
@@ -19,10 +21,12 @@ import {
   openStore,
   resolveDbPath,
   resolveRunRef,
+  ResultBatchEncoder,
   type EncodedBatch,
   type NewRunSpec,
   type Store,
 } from '../shared/db/index.js';
+import { runTableName } from '../shared/db/result-table.js';
 import { InputError } from '../shared/physics/types.js';
 import { STORE_KINDS, createTestDatabase, type TestDatabase } from './helpers/stores.js';
 
@@ -117,7 +121,7 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
         expect(() => store.sqlite).toThrow(/PostgreSQL/);
         expect(store.path).not.toContain(':filmsweep@'); // the password is not shown
       }
-      expect(await tables()).toEqual(expect.arrayContaining(['points', 'results', 'runs', 'studies', 'study_versions']));
+      expect(await tables()).toEqual(expect.arrayContaining(['points', 'results', 'runs', 'studies', 'study_versions', 'result_columns', 'result_shapes']));
       const again = await openStore(database.location);
       expect(again.migrated).toEqual([]);
       await closeStore(again);
@@ -230,17 +234,24 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
       expect((await getRun(store, id))!.points_done).toBe(0);
     });
 
-    it('writes a batch entirely or not at all: a bad row rolls back the whole batch', async () => {
+    it('writes a batch entirely or not at all: a row the database refuses rolls back the whole batch', async () => {
       const id = await createRun(store, spec());
       const writer = createBatchWriter(store, id, ['alpha', 'beta']);
       await writer.write(batch([0, 1]));
-      const bad = batch([2, 3]);
-      bad.outputs[3] = '{"Nu_x": '; // not JSON: the database refuses the last row
-      await expect(writer.write(bad)).rejects.toThrow();
+      const table = runTableName(id);
+      // The last row of the next batch (point 3, method beta: seq 7) is refused.
+      if (kind === 'sqlite') {
+        await store.dialect.run(`create trigger refuse_seq_7 before insert on ${table} when new.seq = 7 begin select raise(abort, 'refused'); end`);
+      } else {
+        await store.dialect.run("create function refuse_seq_7() returns trigger language plpgsql as $$ begin if new.seq = 7 then raise exception 'refused'; end if; return new; end $$");
+        await store.dialect.run(`create trigger refuse_seq_7 before insert on ${table} for each row execute function refuse_seq_7()`);
+      }
+      await expect(writer.write(batch([2, 3]))).rejects.toThrow(/refused/);
       const run = await getRun(store, id);
       expect(run).toMatchObject({ points_done: 2, results_count: 4, flagged_count: 1 });
-      expect(await count('select count(*) as n from results where run_id = ?', id)).toBe(4);
-      expect(await count('select count(*) as n from points where run_id = ? and idx = 2', id)).toBe(0);
+      expect(await count(`select count(*) as n from ${table}`)).toBe(4);
+      expect(await count(`select count(*) as n from ${table} where seq >= 4`)).toBe(0);
+      expect((await getRunSummary(store, id)).map((m) => m.points)).toEqual([2, 2]);
     });
 
     it('is idempotent: a batch written again inserts nothing and leaves the counters alone', async () => {
@@ -251,8 +262,14 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
       expect(await writer.write(batch([0, 1]))).toEqual({ points: 0, results: 0, flagged: 0 });
       expect(await writer.write(batch([1, 2, 3]))).toEqual({ points: 2, results: 4, flagged: 1 });
       expect(await getRun(store, id)).toMatchObject({ points_done: 4, results_count: 8, flagged_count: 2 });
-      expect(await count('select count(*) as n from results where run_id = ?', id)).toBe(8);
+      expect(await count(`select count(*) as n from ${runTableName(id)}`)).toBe(8);
       expect((await getRunRows(store, id)).rows).toHaveLength(8);
+      // The per-method figures count each row once too.
+      const summary = await getRunSummary(store, id);
+      expect(summary.map((m) => [m.points, m.flagged_points, m.nu_min, m.nu_max])).toEqual([
+        [4, 0, 10 + 1 / 3, 13 + 1 / 3],
+        [4, 2, 1e-7, 1e-7 * 4],
+      ]);
     });
 
     it('counts each row once when two connections write overlapping batches at the same time', async () => {
@@ -271,16 +288,84 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
         await closeStore(other);
       }
       expect(await getRun(store, id)).toMatchObject({ points_done: 200, results_count: 400, flagged_count: 100 });
-      expect(await count('select count(*) as n from results where run_id = ?', id)).toBe(400);
-      expect(await count('select count(*) as n from points where run_id = ?', id)).toBe(200);
+      expect(await count(`select count(*) as n from ${runTableName(id)}`)).toBe(400);
+      expect(await count(`select count(*) as n from ${runTableName(id)} where method_idx = 0`)).toBe(200);
+      expect((await getRunSummary(store, id)).map((m) => [m.points, m.flagged_points])).toEqual([
+        [200, 0],
+        [200, 100],
+      ]);
     });
 
-    it('enforces one result per point and method with a unique index', async () => {
+    it('keeps one result per point and method: the run table is keyed by point × methods + method', async () => {
       const id = await createRun(store, spec());
       await createBatchWriter(store, id, ['alpha', 'beta']).write(batch([0]));
-      const dup = `insert into results (run_id, point_idx, method_idx, method, outputs, flags, flagged)
-                   values (?, 0, 1, 'beta', ${store.dialect.jsonParam}, '[]', 0)`;
-      await expect(store.dialect.run(dup, [id, '{}'])).rejects.toThrow(/UNIQUE|duplicate key/);
+      const dup = `insert into ${runTableName(id)} (seq, method_idx, flagged, shape, flags) values (1, 1, 0, 0, null)`;
+      await expect(store.dialect.run(dup)).rejects.toThrow(/UNIQUE|duplicate key/);
+    });
+
+    it('gives back every value as the engine had it: kinds, key order per row, new names in later batches, non-finite outputs flagged', async () => {
+      const id = await createRun(store, spec({ pointsTotal: 6 }));
+      const writer = createBatchWriter(store, id, ['alpha', 'beta']);
+      const inputsOf = (i: number) =>
+        i < 3
+          ? { Re: 1e5 * (i + 1), arrangement: 'staggered', heating: i % 2 === 0, Pr: 0.1 + 0.2 }
+          : // Later points: another key order, a name first seen here, a value of another kind for a known name, a nested value.
+            { Pr: -0, Re: 'high', extra: { a: [1, 2] }, heating: false };
+      const outputsOf = (i: number, m: number): Record<string, number> =>
+        m === 0 ? { Nu: 1 / (i + 3), f: Number.MAX_VALUE, tiny: 5e-324 } : i === 4 ? { h: Number.NaN, Nu_x: -1.5e-300 } : { Nu_x: i * 1e21, h: 2 ** -40 };
+      const expected: { inputs: Record<string, unknown>; outputs: Record<string, number>; flags: string[] }[] = [];
+      for (const points of [[0, 1, 2], [3, 4, 5]]) {
+        const encoder = new ResultBatchEncoder(2, points.length);
+        for (const i of points) {
+          encoder.addPoint(i, inputsOf(i) as never);
+          for (let m = 0; m < 2; m++) {
+            const flags = i === 1 && m === 1 ? ['out-of-range:Re'] : [];
+            encoder.addResult(outputsOf(i, m), flags);
+            const outputs = JSON.parse(JSON.stringify(outputsOf(i, m)));
+            if (i === 4 && m === 1) delete outputs.h; // NaN is left out and flagged
+            expected.push({
+              inputs: JSON.parse(JSON.stringify(inputsOf(i))),
+              outputs,
+              flags: i === 4 && m === 1 ? ['non-finite:h'] : flags,
+            });
+          }
+        }
+        await writer.write(encoder.finish());
+      }
+      const { rows } = await getRunRows(store, id);
+      // toEqual ignores key order and -0: compare the JSON text, which does not.
+      expect(JSON.stringify(rows.map(({ inputs, outputs, flags }) => ({ inputs, outputs, flags })))).toBe(JSON.stringify(expected));
+      expect(Object.is(rows[6].inputs.Pr, 0)).toBe(true);
+      expect(rows[0].outputs.tiny).toBe(5e-324);
+      expect(await getRun(store, id)).toMatchObject({ points_done: 6, results_count: 12, flagged_count: 2 });
+    });
+
+    it('lets two connections add new names to one run at the same time without losing any', async () => {
+      const id = await createRun(store, spec({ pointsTotal: 40 }));
+      const other = await openStore(database.location);
+      try {
+        const writers = [createBatchWriter(store, id, ['alpha', 'beta']), createBatchWriter(other, id, ['alpha', 'beta'])];
+        // Each batch brings an output name of its own.
+        await Promise.all(
+          Array.from({ length: 20 }, (_, b) => {
+            const encoder = new ResultBatchEncoder(2, 2);
+            for (const i of [2 * b, 2 * b + 1]) {
+              encoder.addPoint(i, { Re: i });
+              encoder.addResult({ Nu: i, [`only_${b}`]: b }, []);
+              encoder.addResult({ Nu: 0 - i }, []);
+            }
+            return writers[b % 2].write(encoder.finish());
+          }),
+        );
+      } finally {
+        await closeStore(other);
+      }
+      const { rows } = await getRunRows(store, id);
+      expect(rows).toHaveLength(80);
+      rows.forEach((r, k) => {
+        const i = Math.floor(k / 2);
+        expect(r.outputs).toEqual(k % 2 ? { Nu: 0 - i } : { Nu: i, [`only_${Math.floor(i / 2)}`]: Math.floor(i / 2) });
+      });
     });
 
     it('summarises per method: points, flagged points, min and max of Nu or else Nu_x', async () => {
@@ -301,7 +386,7 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
         for (let b = 0; b < 100; b++) {
           const written = writer.write(batch([4 * b, 4 * b + 1, 4 * b + 2, 4 * b + 3]));
           const [snap] = await reader.dialect.all<{ points_done: number; results_count: number; n: number }>(
-            'select r.points_done, r.results_count, (select count(*) from results where run_id = r.id) n from runs r where id = ?',
+            `select r.points_done, r.results_count, (select count(*) from ${runTableName(id)}) n from runs r where id = ?`,
             [id],
           );
           await written;

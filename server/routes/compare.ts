@@ -2,7 +2,7 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { getRun } from '../../shared/db/index.js';
-import { NAME_PATTERN } from '../../shared/db/results-cache.js';
+import { NAME_PATTERN } from '../../shared/db/results-query.js';
 import { compareRuns, MAX_PAGE_SIZE } from '../../shared/db/results-query.js';
 import { withRunMeta } from '../../shared/db/studies.js';
 import type { AppContext } from '../context.js';

@@ -4,7 +4,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { createMeasurement, getMeasurement, listMeasurements, type MeasurementRow } from '../../shared/db/measurements.js';
-import { NAME_PATTERN } from '../../shared/db/results-cache.js';
+import { NAME_PATTERN } from '../../shared/db/results-query.js';
 import { getStudyName } from '../../shared/db/studies.js';
 import type { AppContext } from '../context.js';
 import { HttpError, notFound } from '../http-error.js';

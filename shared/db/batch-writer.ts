@@ -1,30 +1,41 @@
-// The hot path: one transaction per computed batch holding its points, its results and
-// the run's progress counters, so a reader sees a batch entirely or not at all and a
-// kill -9 loses at most the batches not yet committed.
+// The hot path: one transaction per computed batch holding its rows in the run's table
+// (result-table.ts) and the run's progress counters, so a reader sees a batch entirely or
+// not at all and a kill -9 loses at most the batches not yet committed. A batch that
+// brings a new input or output name (or a new key order) adds the column and the shape to
+// the run's layout in the same transaction.
 //
-// Idempotent: points and results go in with ON CONFLICT DO NOTHING on their keys
-// ((run_id, idx) and (run_id, point_idx, method_idx)) and the counters advance by the rows
-// actually inserted, so a batch written twice (a queue job retried after its worker died
-// between commit and acknowledgement) changes nothing the second time.
+// Idempotent: rows go in with ON CONFLICT DO NOTHING on seq (point × methods + method) and
+// the counters advance by the rows actually inserted, so a batch written twice (a queue
+// job retried after its worker died between commit and acknowledgement) changes nothing
+// the second time. The same goes for the per-method figures kept beside the rows
+// (result_counts, result_stats: results, flagged, and each number column's count, lowest
+// and highest value), which the run summary and the charts read instead of the rows.
 //
-// The statements differ by dialect (shared/db/dialect.ts): prepared better-sqlite3
-// statements on SQLite, multi-row INSERT … SELECT FROM unnest(arrays) on PostgreSQL.
+// SQLite: prepared better-sqlite3 statements, synchronous (one transaction on the
+// connection Kysely shares). A batch whose rows are all new (nearly always: one range
+// lookup on the rowid tells) goes in ROWS_PER_INSERT rows per statement, which costs
+// about half of one call per row; otherwise row by row with ON CONFLICT DO NOTHING,
+// counting what went in. PostgreSQL: one multi-row INSERT … SELECT FROM unnest(arrays)
+// per batch (a fixed number of parameters whatever the batch size).
+import type pg from 'pg';
+import type BetterSqlite3 from 'better-sqlite3';
+import { retryBusySync } from './busy.js';
+import { numberPlaceholders } from './dialect.js';
+import { encodeJsonRows, type ColumnKind, type LayoutMapping, type ResultBatch, type RunLayout } from './result-layout.js';
+import { LAYOUT_COLUMNS_SQL, LAYOUT_SHAPES_SQL, layoutAdditions, layoutOf, runTableName, valueColumn } from './result-table.js';
 import type { Store } from './store.js';
 
+export type { ResultBatch };
+
 /**
- * One computed batch, as the runner's worker returns it: JSON already encoded off the
- * main thread, in flat arrays (cheaper to pass between threads than an object per row).
- * Every point has a result for every method, point-major: result k is point
- * `points[floor(k / methods)]`, method `k % methods`.
+ * A batch as JSON text (the form before migrations/0005_run_tables.ts; still accepted, e.g.
+ * from a pushed run): `points[i]`'s inputs as JSON, then per result (point-major, every
+ * method of every point) its outputs and the JSON array of its flags.
  */
 export interface EncodedBatch {
-  /** Point indices (positions in the sweep expansion). */
   points: number[];
-  /** JSON of each point's inputs, parallel to `points`. */
   inputs: string[];
-  /** JSON of each result's outputs. */
   outputs: string[];
-  /** JSON array of each result's flags (`[]` when none). */
   flags: string[];
 }
 
@@ -37,9 +48,337 @@ export interface WrittenCounts {
 
 export interface BatchWriter {
   /** Writes the batch and advances the run's counters by the rows inserted, atomically. */
-  write(batch: EncodedBatch): Promise<WrittenCounts>;
+  write(batch: ResultBatch | EncodedBatch): Promise<WrittenCounts>;
 }
 
-export function createBatchWriter(store: Store, runId: number, methodIds: readonly string[]): BatchWriter {
-  return store.dialect.batchWriter(runId, methodIds);
+export interface BatchWriterOptions {
+  /** Advance the run's points_done / results_count / flagged_count (default true; false when converting stored rows). */
+  counters?: boolean;
+}
+
+export function createBatchWriter(store: Store, runId: number, methodIds: readonly string[], options: BatchWriterOptions = {}): BatchWriter {
+  const M = methodIds.length;
+  const counters = options.counters ?? true;
+  const write = store.kind === 'sqlite' ? sqliteWriter(store.sqlite, runId, M, counters) : postgresWriter(store.pool!, runId, M, counters);
+  return {
+    write: (batch) => {
+      try {
+        if (!('columns' in batch) && (batch.outputs.length !== batch.points.length * M || batch.flags.length !== batch.outputs.length)) {
+          throw new Error(`batch of ${batch.points.length} points has ${batch.outputs.length} results for ${M} methods`);
+        }
+        const b = 'columns' in batch ? batch : encodeJsonRows(batch, M);
+        checkShape(b, M);
+        return write(b);
+      } catch (e) {
+        return Promise.reject(e);
+      }
+    },
+  };
+}
+
+function checkShape(batch: ResultBatch, M: number): void {
+  const rows = batch.shape.length;
+  if (batch.methods !== M || rows !== batch.points.length * M || batch.flags.length !== rows || batch.values.some((v) => v.length !== rows)) {
+    throw new Error(`batch of ${batch.points.length} points has ${rows} results for ${M} methods`);
+  }
+}
+
+/** Run column → the batch's column holding it (−1: none, the row stores null). */
+function batchColumnOf(layout: RunLayout, mapping: LayoutMapping): Int32Array {
+  const of = new Int32Array(layout.columns.length).fill(-1);
+  mapping.columns.forEach((runColumn, batchColumn) => (of[runColumn] = batchColumn));
+  return of;
+}
+
+/** The stored value of result r in a batch column: NaN (no number) becomes null. */
+function cell(values: ResultBatch['values'][number], r: number): string | number | null {
+  const v = values[r];
+  return typeof v === 'number' && v !== v ? null : v;
+}
+
+/**
+ * SQLite: one row's INSERT (or `rows` rows'). PostgreSQL: the batch's INSERT … SELECT FROM
+ * unnest(one array per column), giving the seq of each row inserted.
+ */
+function insertSql(runId: number, columns: number, dialect: 'sqlite' | 'postgres', kinds: ColumnKind[] = [], rows = 1): string {
+  const names = ['seq', 'method_idx', 'flagged', 'shape', 'flags', ...Array.from({ length: columns }, (_, k) => valueColumn(k))];
+  if (dialect === 'sqlite') {
+    const row = `(${names.map(() => '?').join(', ')})`;
+    const into = `insert into ${runTableName(runId)} (${names.join(', ')}) values `;
+    // One row: may meet a stored row (skipped and not counted); several: only where none can.
+    return rows === 1 ? `${into}${row} on conflict do nothing` : `${into}${Array(rows).fill(row).join(', ')}`;
+  }
+  const PG_ARRAY: Record<ColumnKind, string> = { number: 'float8[]', string: 'text[]', boolean: 'int[]', json: 'text[]' };
+  const types = ['bigint[]', 'int[]', 'int[]', 'int[]', 'text[]', ...kinds.map((k) => PG_ARRAY[k])];
+  return (
+    `with ins as (insert into ${runTableName(runId)} (${names.join(', ')}) ` +
+    `select * from unnest(${types.map((t, i) => `$${i + 1}::${t}`).join(', ')}) as u(${names.join(', ')}) order by u.seq ` +
+    'on conflict do nothing returning seq) select seq from ins'
+  );
+}
+
+/** Per method: results and flagged results inserted; per method and run column: count, lowest, highest. */
+interface BatchFigures {
+  counts: { method: number; results: number; flagged: number }[];
+  stats: { method: number; column: number; count: number; minimum: number; maximum: number }[];
+}
+
+/** The figures of a batch's rows that were inserted (all of them when `inserted` is not given). */
+function figures(batch: ResultBatch, mapping: LayoutMapping, M: number, inserted?: Uint8Array): BatchFigures {
+  const rows = batch.shape.length;
+  const results = new Array<number>(M).fill(0);
+  const flagged = new Array<number>(M).fill(0);
+  for (let r = 0; r < rows; r++) {
+    if (inserted && !inserted[r]) continue;
+    results[r % M]++;
+    if (batch.flags[r] !== null) flagged[r % M]++;
+  }
+  const stats: BatchFigures['stats'] = [];
+  batch.values.forEach((values, b) => {
+    if (!(values instanceof Float64Array)) return;
+    for (let m = 0; m < M; m++) {
+      let count = 0;
+      let minimum = Infinity;
+      let maximum = -Infinity;
+      for (let r = m; r < rows; r += M) {
+        const v = values[r];
+        if (v !== v || (inserted && !inserted[r])) continue;
+        count++;
+        if (v < minimum) minimum = v;
+        if (v > maximum) maximum = v;
+      }
+      if (count) stats.push({ method: m, column: mapping.columns[b], count, minimum, maximum });
+    }
+  });
+  return { counts: results.map((n, m) => ({ method: m, results: n, flagged: flagged[m] })).filter((c) => c.results > 0), stats };
+}
+
+const COUNTS_UPSERT =
+  'insert into result_counts (run_id, method_idx, results, flagged) values (?, ?, ?, ?) on conflict (run_id, method_idx) ' +
+  'do update set results = result_counts.results + excluded.results, flagged = result_counts.flagged + excluded.flagged';
+const STATS_UPSERT = (least: string, greatest: string) =>
+  'insert into result_stats (run_id, method_idx, column_idx, count, minimum, maximum) values (?, ?, ?, ?, ?, ?) ' +
+  'on conflict (run_id, method_idx, column_idx) do update set count = result_stats.count + excluded.count, ' +
+  `minimum = ${least}(result_stats.minimum, excluded.minimum), maximum = ${greatest}(result_stats.maximum, excluded.maximum)`;
+
+/** Rows per multi-row INSERT on SQLite (measured: 16 → 64 → 128 rows gain less and less). */
+const ROWS_PER_INSERT = 64;
+
+const ADVANCE = 'update runs set points_done = points_done + ?, results_count = results_count + ?, flagged_count = flagged_count + ? where id = ?';
+
+function sqliteWriter(sqlite: BetterSqlite3.Database, runId: number, M: number, counters: boolean): (batch: ResultBatch) => Promise<WrittenCounts> {
+  const advance = sqlite.prepare(ADVANCE);
+  const load = () => layoutOf(sqlite.prepare(LAYOUT_COLUMNS_SQL).all(runId) as Record<string, unknown>[], sqlite.prepare(LAYOUT_SHAPES_SQL).all(runId) as Record<string, unknown>[]);
+  // The layout as this process last committed or read it; a failed transaction leaves it as it was.
+  let layout: RunLayout | undefined;
+  const statements = new Map<string, BetterSqlite3.Statement>();
+  const statement = (columns: number, rows: number) => {
+    const key = `${columns}/${rows}`;
+    let st = statements.get(key);
+    if (!st) statements.set(key, (st = sqlite.prepare(insertSql(runId, columns, 'sqlite', [], rows))));
+    return st;
+  };
+  const anyStored = sqlite.prepare(`select exists (select 1 from ${runTableName(runId)} where seq between ? and ?) as found`).pluck();
+  const countsUpsert = sqlite.prepare(COUNTS_UPSERT);
+  const statsUpsert = sqlite.prepare(STATS_UPSERT('min', 'max'));
+
+  const writeAll = sqlite.transaction((batch: ResultBatch): { counts: WrittenCounts; layout: RunLayout } => {
+    let current = layout ?? load();
+    let mapping = current.find(batch);
+    if (!mapping) {
+      // New names or shapes: read the layout again inside the write lock (another process
+      // may have extended it), then add what is still missing.
+      current = load();
+      mapping = current.merge(batch);
+      for (const s of layoutAdditions('sqlite', runId, mapping.added)) sqlite.prepare(s.sql).run(...(s.params ?? []));
+    }
+    const C = current.columns.length;
+    const W = 5 + C;
+    const from = batchColumnOf(current, mapping);
+    const { points, values, shape, flags } = batch;
+    const shapes = mapping.shapes;
+    /** Writes result r's parameters into args from position o. */
+    const fill = (args: (string | number | null)[], o: number, r: number, seq: number) => {
+      const f = flags[r];
+      args[o] = seq;
+      args[o + 1] = r % M;
+      args[o + 2] = f === null ? 0 : 1;
+      args[o + 3] = shapes[shape[r]];
+      args[o + 4] = f;
+      for (let c = 0; c < C; c++) args[o + 5 + c] = from[c] < 0 ? null : cell(values[from[c]], r);
+    };
+    let lo = Infinity;
+    let hi = -Infinity;
+    for (const p of points) {
+      if (p < lo) lo = p;
+      if (p > hi) hi = p;
+    }
+    let counts: WrittenCounts;
+    let inserted: Uint8Array | undefined;
+    if (points.length && !anyStored.get(lo * M, hi * M + M - 1)) {
+      // Every row is new: several rows per statement, and the counts are the batch's own.
+      const many = statement(C, ROWS_PER_INSERT);
+      const one = statement(C, 1);
+      const args: (string | number | null)[] = new Array(W * ROWS_PER_INSERT);
+      const single: (string | number | null)[] = new Array(W);
+      let k = 0;
+      let flagged = 0;
+      for (let i = 0, r = 0; i < points.length; i++) {
+        for (let m = 0; m < M; m++, r++) {
+          if (flags[r] !== null) flagged++;
+          fill(args, k * W, r, points[i] * M + m);
+          if (++k === ROWS_PER_INSERT) {
+            many.run(args);
+            k = 0;
+          }
+        }
+      }
+      for (let j = 0; j < k; j++) {
+        for (let x = 0; x < W; x++) single[x] = args[j * W + x];
+        one.run(single);
+      }
+      counts = { points: points.length, results: points.length * M, flagged };
+    } else {
+      const one = statement(C, 1);
+      const args: (string | number | null)[] = new Array(W);
+      counts = { points: 0, results: 0, flagged: 0 };
+      inserted = new Uint8Array(shape.length);
+      for (let i = 0, r = 0; i < points.length; i++) {
+        let n = 0;
+        for (let m = 0; m < M; m++, r++) {
+          fill(args, 0, r, points[i] * M + m);
+          if (one.run(args).changes) {
+            inserted[r] = 1;
+            n++;
+            if (flags[r] !== null) counts.flagged++;
+          }
+        }
+        counts.results += n;
+        if (n) counts.points++;
+      }
+    }
+    if (counts.results) {
+      const f = figures(batch, mapping, M, inserted);
+      for (const c of f.counts) countsUpsert.run(runId, c.method, c.results, c.flagged);
+      for (const x of f.stats) statsUpsert.run(runId, x.method, x.column, x.count, x.minimum, x.maximum);
+    }
+    if (counters && counts.results) advance.run(counts.points, counts.results, counts.flagged, runId);
+    return { counts, layout: current };
+  });
+
+  return (batch) => {
+    try {
+      // BEGIN IMMEDIATE: take the write lock up front, so waiting for another process happens
+      // in the busy handler instead of failing half-way through the batch.
+      const done = retryBusySync(() => writeAll.immediate(batch));
+      layout = done.layout;
+      return Promise.resolve(done.counts);
+    } catch (e) {
+      return Promise.reject(e);
+    }
+  };
+}
+
+/** Layout changes of one run are serialised by this advisory lock (with the run id as second key). */
+const LAYOUT_LOCK = 0x46_53_57_4c; // "FSWL"
+
+function postgresWriter(pool: pg.Pool, runId: number, M: number, counters: boolean): (batch: ResultBatch) => Promise<WrittenCounts> {
+  let layout: RunLayout | undefined;
+  const load = async (client: pg.PoolClient) =>
+    layoutOf(
+      (await client.query(numberPlaceholders(LAYOUT_COLUMNS_SQL), [runId])).rows,
+      (await client.query(numberPlaceholders(LAYOUT_SHAPES_SQL), [runId])).rows,
+    );
+  return (batch) =>
+    retryDeadlock(async () => {
+      const client = await pool.connect();
+      try {
+        await client.query('begin');
+        let current = layout ?? (await load(client));
+        let mapping = current.find(batch);
+        if (!mapping) {
+          await client.query('select pg_advisory_xact_lock($1, $2)', [LAYOUT_LOCK, runId]);
+          current = await load(client);
+          mapping = current.merge(batch);
+          for (const s of layoutAdditions('postgres', runId, mapping.added)) await client.query(numberPlaceholders(s.sql), s.params ?? []);
+        }
+        const C = current.columns.length;
+        const from = batchColumnOf(current, mapping);
+        const n = batch.shape.length;
+        const seq = new Array<number>(n);
+        const method = new Array<number>(n);
+        const flaggedOf = new Array<number>(n);
+        const shapes = new Array<number>(n);
+        for (let i = 0, r = 0; i < batch.points.length; i++) {
+          for (let m = 0; m < M; m++, r++) {
+            seq[r] = batch.points[i] * M + m;
+            method[r] = m;
+            flaggedOf[r] = batch.flags[r] === null ? 0 : 1;
+            shapes[r] = mapping.shapes[batch.shape[r]];
+          }
+        }
+        const columns = Array.from({ length: C }, (_, c) => {
+          const values = from[c] < 0 ? undefined : batch.values[from[c]];
+          return Array.from({ length: n }, (_, r) => (values ? cell(values, r) : null));
+        });
+        const kinds = current.columns.map((c) => c.kind);
+        const ins = await client.query(insertSql(runId, C, 'postgres', kinds), [seq, method, flaggedOf, shapes, batch.flags, ...columns]);
+        const inserted = new Uint8Array(n);
+        const resultOf = new Map<number, number>(); // seq → result index in this batch
+        for (let r = 0; r < n; r++) resultOf.set(seq[r], r);
+        const points = new Set<number>();
+        let flagged = 0;
+        for (const row of ins.rows) {
+          const r = resultOf.get(Number(row.seq))!;
+          inserted[r] = 1;
+          points.add(batch.points[Math.floor(r / M)]);
+          if (batch.flags[r] !== null) flagged++;
+        }
+        const written: WrittenCounts = { points: points.size, results: ins.rows.length, flagged };
+        if (written.results) {
+          const f = figures(batch, mapping, M, inserted);
+          if (f.counts.length) {
+            await client.query(COUNTS_UPSERT.replace('values (?, ?, ?, ?)', 'select $1::int, u.* from unnest($2::int[], $3::int[], $4::int[]) as u'), [
+              runId,
+              f.counts.map((c) => c.method),
+              f.counts.map((c) => c.results),
+              f.counts.map((c) => c.flagged),
+            ]);
+          }
+          if (f.stats.length) {
+            await client.query(
+              STATS_UPSERT('least', 'greatest').replace('values (?, ?, ?, ?, ?, ?)', 'select $1::int, u.* from unnest($2::int[], $3::int[], $4::int[], $5::float8[], $6::float8[]) as u'),
+              [runId, ...(['method', 'column', 'count', 'minimum', 'maximum'] as const).map((k) => f.stats.map((x) => x[k]))],
+            );
+          }
+        }
+        if (counters && written.results) {
+          await client.query(numberPlaceholders(ADVANCE), [written.points, written.results, written.flagged, runId]);
+        }
+        await client.query('commit');
+        layout = current;
+        return written;
+      } catch (e) {
+        await client.query('rollback').catch(() => undefined);
+        throw e;
+      } finally {
+        client.release();
+      }
+    });
+}
+
+/**
+ * Two writers of overlapping batches wait for each other's uncommitted rows; rows go in
+ * key order so they cannot wait in a circle, and should PostgreSQL still report a
+ * deadlock (40P01), the whole transaction is simply run again.
+ */
+async function retryDeadlock<T>(fn: () => Promise<T>): Promise<T> {
+  for (let attempt = 0; ; attempt++) {
+    try {
+      return await fn();
+    } catch (e) {
+      if ((e as { code?: unknown })?.code !== '40P01' || attempt >= 5) throw e;
+      await new Promise((r) => setTimeout(r, 20 * 2 ** attempt * Math.random()));
+    }
+  }
 }

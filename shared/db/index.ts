@@ -1,5 +1,6 @@
 // The store: SQLite or PostgreSQL through Kysely (schema in migrations/, dialect
-// differences in dialect.ts), plus the queries the CLI and the dashboard server share.
+// differences in dialect.ts, each run's results in its own table: result-table.ts), plus
+// the queries the CLI and the dashboard server share.
 export { openStore, closeStore, type Store, type OpenOptions } from './store.js';
 export { resolveDbPath, isDatabaseUrl, redactUrl, DEFAULT_DB_FILE } from './path.js';
 export type { Dialect, DialectName } from './dialect.js';
@@ -20,6 +21,7 @@ export {
 } from './queries.js';
 export {
   createRun,
+  deleteRun,
   finishRun,
   getRunSource,
   claimRunForResume,
@@ -28,7 +30,9 @@ export {
   type NewRunSpec,
   type RunSource,
 } from './runs.js';
-export { createBatchWriter, type BatchWriter, type EncodedBatch, type WrittenCounts } from './batch-writer.js';
+export { createBatchWriter, type BatchWriter, type BatchWriterOptions, type EncodedBatch, type WrittenCounts } from './batch-writer.js';
+export { ResultBatchEncoder, RunLayout, type ResultBatch, type ResultColumn, type ResultShape, type ColumnKind } from './result-layout.js';
+export { convertLegacyRun } from './legacy-results.js';
 export { immediateTransaction } from './transaction.js';
 export { isBusyError } from './busy.js';
 // The dashboard's store modules (migrations/0002_dashboard.ts).
@@ -41,6 +45,5 @@ export * from './audit.js';
 export * from './outbox.js';
 export * from './measurements.js';
 export * from './studies.js';
-export * from './results-cache.js';
 export * from './results-query.js';
 export { newSecret, hashSecret } from './secrets.js';

@@ -1,10 +1,10 @@
 // Reading runs back: used by the CLI (list, show, export) and the dashboard server.
-import { sql } from 'kysely';
 import type { ResultRow } from '../physics/engine.js';
-import { InputError, type Inputs, type Outputs } from '../physics/types.js';
+import { InputError } from '../physics/types.js';
+import { legacyRunRows, legacyRunSummary, type LegacySummaryRow } from './legacy-results.js';
+import { eachStoredResult, hasRunTable, loadLayout } from './result-table.js';
 import type { MethodVersion } from './runs.js';
 import type { RunStatus } from './schema.js';
-import { jsonNumberSql, jsonTextSql } from './dialect.js';
 import type { Store } from './store.js';
 import type { RunInfo } from '../export/run-info.js';
 
@@ -126,27 +126,11 @@ export async function resolveRunRef(store: Store, ref: string | number): Promise
 export async function getRunRows(store: Store, runId: number): Promise<{ run: RunInfo; rows: ResultRow[] }> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
-  const raw = await store.db
-    .selectFrom('results as r')
-    .innerJoin('points as p', (j) => j.onRef('p.run_id', '=', 'r.run_id').onRef('p.idx', '=', 'r.point_idx'))
-    .select(['r.point_idx', 'r.method', 'r.flags'])
-    .select(jsonTextSql(store.db, 'p.inputs').as('inputs'))
-    .select(jsonTextSql(store.db, 'r.outputs').as('outputs'))
-    .where('r.run_id', '=', runId)
-    .orderBy('r.point_idx')
-    .orderBy('r.method_idx')
-    .execute();
+  if (!(await hasRunTable(store, runId))) return { run, rows: await legacyRunRows(store, runId) };
   const rows: ResultRow[] = [];
-  let lastPoint = -1;
-  let inputs: Inputs = {};
-  for (const r of raw) {
-    // The methods of one point share its inputs object, as the engine returns them.
-    if (r.point_idx !== lastPoint) {
-      inputs = JSON.parse(r.inputs) as Inputs;
-      lastPoint = r.point_idx;
-    }
-    rows.push({ method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] });
-  }
+  await eachStoredResult(store, runId, run.methods.length, (r) => {
+    rows.push({ method: run.methods[r.method].id, inputs: r.inputs, outputs: r.outputs, flags: r.flags });
+  });
   return { run, rows };
 }
 
@@ -154,18 +138,8 @@ export async function getRunRows(store: Store, runId: number): Promise<{ run: Ru
 export async function getRunSummary(store: Store, runId: number): Promise<MethodSummary[]> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
-  const stats = await store.db
-    .selectFrom('results')
-    .select(['method_idx'])
-    .select((eb) => [eb.fn.countAll<number>().as('points'), eb.fn.sum<number>('flagged').as('flagged')])
-    .select(sql<number | null>`min(${jsonNumberSql(store.db, 'outputs', 'Nu')})`.as('nu_min'))
-    .select(sql<number | null>`max(${jsonNumberSql(store.db, 'outputs', 'Nu')})`.as('nu_max'))
-    .select(sql<number | null>`min(${jsonNumberSql(store.db, 'outputs', 'Nu_x')})`.as('nux_min'))
-    .select(sql<number | null>`max(${jsonNumberSql(store.db, 'outputs', 'Nu_x')})`.as('nux_max'))
-    .where('run_id', '=', runId)
-    .groupBy('method_idx')
-    .execute();
-  const byIdx = new Map(stats.map((s) => [s.method_idx, s]));
+  const stats = (await hasRunTable(store, runId)) ? await tableSummary(store, runId) : await legacyRunSummary(store, runId);
+  const byIdx = new Map(stats.map((s) => [Number(s.method_idx), s]));
   return run.methods.map((m, i) => {
     const s = byIdx.get(i);
     const useNu = s?.nu_min != null;
@@ -179,5 +153,27 @@ export async function getRunSummary(store: Store, runId: number): Promise<Method
       nu_min: useNu ? s!.nu_min : useNux ? s!.nux_min : null,
       nu_max: useNu ? s!.nu_max : useNux ? s!.nux_max : null,
     };
+  });
+}
+
+/** The summary's figures of a run with a table: from the figures the batch writer keeps. */
+async function tableSummary(store: Store, runId: number): Promise<LegacySummaryRow[]> {
+  const layout = await loadLayout(store, runId);
+  const d = store.dialect;
+  const counts = await d.all<{ method_idx: number; results: number; flagged: number }>('select method_idx, results, flagged from result_counts where run_id = ?', [runId]);
+  const stats = await d.all<{ method_idx: number; column_idx: number; minimum: number; maximum: number }>(
+    'select method_idx, column_idx, minimum, maximum from result_stats where run_id = ?',
+    [runId],
+  );
+  const range = (method: number, name: string) => {
+    const c = layout.column('output', name);
+    const s = c === undefined ? undefined : stats.find((x) => Number(x.method_idx) === method && Number(x.column_idx) === c);
+    return s ? [Number(s.minimum), Number(s.maximum)] : [null, null];
+  };
+  return counts.map((c) => {
+    const m = Number(c.method_idx);
+    const [nu_min, nu_max] = range(m, 'Nu');
+    const [nux_min, nux_max] = range(m, 'Nu_x');
+    return { method_idx: m, points: Number(c.results), flagged: Number(c.flagged), nu_min, nu_max, nux_min, nux_max };
   });
 }

@@ -1,19 +1,32 @@
 // The dashboard's reads of one run's results: a filtered, sorted page; chart data
-// downsampled to a bounded size; and the comparison of two runs. Large finished runs are
-// read from their results cache (results-cache.ts), the rest straight off the JSONB
-// columns; both give the same rows in the same order. Names reach SQL only after they
-// matched NAME_PATTERN and a column of the run; values always travel as parameters.
+// downsampled to a bounded size; and the comparison of two runs. A run's results are read
+// from its own table (result-table.ts), whose plain columns the filters and sorts use
+// directly; a run stored before migrations/0005_run_tables.ts is read straight off the
+// JSON columns of points/results while it is converted in the background
+// (legacy-results.ts). Both give the same rows in the same order. Names reach SQL only
+// after they matched NAME_PATTERN and a column of the run; values always travel as
+// parameters.
 import { getMethod } from '../physics/catalogue.js';
 import { InputError, type Inputs, type Outputs } from '../physics/types.js';
+import { convertInBackground, readingRun } from './legacy-results.js';
 import { getRun, type RunInfo } from './queries.js';
-import { CACHE_MIN_RESULTS, NAME_PATTERN, ensureCacheIndex, ensureResultsCache, scanRunColumns, type ResultsCache, type RunColumns } from './results-cache.js';
+import type { RunLayout } from './result-layout.js';
+import { eachStoredResult, hasRunTable, loadLayout, runTableName, valueColumn } from './result-table.js';
 import type { Store } from './store.js';
 
 export const MAX_PAGE_SIZE = 500;
 export const MAX_CHART_POINTS = 20_000;
 export const MAX_SERIES = 100;
-/** For runs still being written, names are read from this many rows (the cache reads all). */
+/** For runs in points/results, names are read from this many rows while they are large or running. */
 const COLUMN_SAMPLE = 20_000;
+
+/** Names the dashboard may filter, sort and plot by; nothing else reaches SQL. */
+export const NAME_PATTERN = /^[A-Za-z_][A-Za-z0-9_]*$/;
+
+export interface RunColumns {
+  inputs: string[];
+  outputs: string[];
+}
 
 export interface RangeFilter {
   name: string;
@@ -33,6 +46,7 @@ export interface ResultsQuery {
 }
 
 export interface ResultPageRow {
+  /** The result's number within its run (point × methods + method + 1); older runs: their row id. */
   id: number;
   point: number;
   method: string;
@@ -48,11 +62,12 @@ export interface ResultsPage {
   rows: ResultPageRow[];
 }
 
-/** How SQL reaches a run's values: through its cache table or through the JSONB columns. */
+/** How SQL reaches a run's values: its run table, or the JSON columns of points/results. */
 interface Source {
   run: RunInfo;
   columns: RunColumns;
-  cache?: ResultsCache;
+  /** Set when the run has its table. */
+  layout?: RunLayout;
   from: string;
   where: string[];
   params: unknown[];
@@ -61,36 +76,48 @@ interface Source {
 interface Expr {
   sql: string;
   params: unknown[];
-  /** Cache column, when the source is a cache. */
-  column?: string;
 }
 
 async function openSource(store: Store, runId: number): Promise<Source> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
-  const cache = await ensureResultsCache(store, runId);
-  if (cache) return { run, columns: cache.columns, cache, from: `${cache.table} c`, where: [], params: [] };
+  if (await hasRunTable(store, runId)) {
+    const layout = await loadLayout(store, runId);
+    const names = layout.names();
+    const columns = { inputs: names.inputs.filter((n) => NAME_PATTERN.test(n)), outputs: names.outputs.filter((n) => NAME_PATTERN.test(n)) };
+    return { run, columns, layout, from: `${runTableName(runId)} c`, where: [], params: [] };
+  }
+  // Stored before run tables: converted in the background (not for a run still being written).
+  if (run.status !== 'running' && run.status !== 'queued') void convertInBackground(store, runId);
   const sample = run.results_count > COLUMN_SAMPLE || run.status === 'running' ? COLUMN_SAMPLE : undefined;
   return {
     run,
-    columns: await scanRunColumns(store, runId, sample),
+    columns: await scanJsonColumns(store, runId, sample),
     from: 'results r join points p on p.run_id = r.run_id and p.idx = r.point_idx',
     where: ['r.run_id = ?'],
     params: [runId],
   };
 }
 
-/** The input and output names of a run (exact once the run is cached; sampled while it runs). */
+/** Every input and output name of a run in points/results (a pass over `limit` rows, or all). */
+async function scanJsonColumns(store: Store, runId: number, limit?: number): Promise<RunColumns> {
+  const d = store.dialect;
+  const keys = async (table: string, column: string) =>
+    (await d.all<{ key: string }>(d.jsonKeysQuery(table, column, limit), [runId])).map((r) => r.key).filter((n) => NAME_PATTERN.test(n));
+  return { inputs: await keys('points', 'inputs'), outputs: await keys('results', 'outputs') };
+}
+
+/** The input and output names of a run (sampled while a run stored in points/results is large or running). */
 export async function getRunColumns(store: Store, runId: number): Promise<RunColumns> {
-  return (await openSource(store, runId)).columns;
+  return readingRun(store, runId, async () => (await openSource(store, runId)).columns);
 }
 
 function valueExpr(store: Store, src: Source, name: string): Expr {
   if (!NAME_PATTERN.test(name)) throw new InputError(`'${name}' is not a column name`);
   // An output wins over an input of the same name: it is what the method computed.
-  if (src.cache) {
-    const column = src.cache.outputColumn.get(name) ?? src.cache.inputColumn.get(name);
-    if (column) return { sql: `c.${column}`, params: [], column };
+  if (src.layout) {
+    const column = src.layout.anyColumn(name);
+    if (column !== undefined) return { sql: `c.${valueColumn(column)}`, params: [] };
   } else if (src.columns.outputs.includes(name)) {
     return { sql: store.dialect.jsonNumber('r.outputs', name), params: [] };
   } else if (src.columns.inputs.includes(name)) {
@@ -100,9 +127,9 @@ function valueExpr(store: Store, src: Source, name: string): Expr {
   throw new InputError(`run ${src.run.id} has no input or output '${name}'; it has: ${known.join(', ')}`);
 }
 
-function col(src: Source, what: 'seq' | 'point' | 'method' | 'flagged' | 'id'): string {
-  if (src.cache) return { seq: 'c.seq', point: 'c.point_idx', method: 'c.method_idx', flagged: 'c.flagged', id: 'c.result_id' }[what];
-  return { seq: 'r.point_idx, r.method_idx', point: 'r.point_idx', method: 'r.method_idx', flagged: 'r.flagged', id: 'r.id' }[what];
+function col(src: Source, what: 'seq' | 'method' | 'flagged' | 'id'): string {
+  if (src.layout) return { seq: 'c.seq', method: 'c.method_idx', flagged: 'c.flagged', id: 'c.seq' }[what];
+  return { seq: 'r.point_idx, r.method_idx', method: 'r.method_idx', flagged: 'r.flagged', id: 'r.id' }[what];
 }
 
 function methodIndices(run: RunInfo, methods: string[]): number[] {
@@ -116,11 +143,10 @@ function methodIndices(run: RunInfo, methods: string[]): number[] {
 interface Conditions {
   sql: string[];
   params: unknown[];
-  filterExprs: Expr[];
 }
 
 function conditions(store: Store, src: Source, q: Pick<ResultsQuery, 'methods' | 'flagged' | 'filters'>): Conditions {
-  const out: Conditions = { sql: [...src.where], params: [...src.params], filterExprs: [] };
+  const out: Conditions = { sql: [...src.where], params: [...src.params] };
   if (q.methods?.length) {
     const idx = methodIndices(src.run, q.methods);
     out.sql.push(`${col(src, 'method')} in (${idx.map(() => '?').join(', ')})`);
@@ -130,7 +156,6 @@ function conditions(store: Store, src: Source, q: Pick<ResultsQuery, 'methods' |
   if (q.flagged === 'no') out.sql.push(`${col(src, 'flagged')} = 0`);
   for (const f of q.filters ?? []) {
     const e = valueExpr(store, src, f.name);
-    out.filterExprs.push(e);
     if (f.min !== undefined) {
       out.sql.push(`${e.sql} >= ?`);
       out.params.push(...e.params, f.min);
@@ -154,6 +179,10 @@ const whereOf = (c: Conditions) => (c.sql.length ? ` where ${c.sql.join(' and ')
  * reverses all three); a missing value sorts below every number, as in SQLite.
  */
 export async function queryResults(store: Store, runId: number, q: ResultsQuery = {}): Promise<ResultsPage> {
+  return readingRun(store, runId, () => pageOf(store, runId, q));
+}
+
+async function pageOf(store: Store, runId: number, q: ResultsQuery): Promise<ResultsPage> {
   const page = Math.max(1, Math.floor(q.page ?? 1));
   const pageSize = Math.min(MAX_PAGE_SIZE, Math.max(1, Math.floor(q.pageSize ?? 50)));
   const dir = q.order === 'desc' ? 'desc' : 'asc';
@@ -162,67 +191,42 @@ export async function queryResults(store: Store, runId: number, q: ResultsQuery 
   const sort = q.sort ?? 'point';
   const sortExpr = sort === 'point' || sort === 'method' ? undefined : valueExpr(store, src, sort);
 
-  // With a cache, steer SQLite to covering indexes (measured on 1e6 results, see
-  // migrations/0002_dashboard.ts): the count walks the index led by the first filter's
-  // column (a range scan, 7 ms for one filter); the page walks the index led by the sort
-  // column, testing the filters on the index entries (2–25 ms, unlike a table scan with a
-  // sort, 60–110 ms, or an index walk with a row lookup per entry, up to 300 ms when the
-  // filter removes one end of the sort order). When the filters leave under 5 % of the
-  // rows, the page reads those through the count's index and sorts them.
-  // Index hints are SQLite's; PostgreSQL's planner gets the same indexes, unhinted.
-  const hint = (index: string) => store.dialect.indexHint(index);
-  let countHint = '';
-  let pagePlan: (total: number) => Promise<string> = async () => '';
-  if (src.cache) {
-    const cache = src.cache;
-    const filterColumns = [...new Set(cond.filterExprs.map((e) => e.column!))];
-    const tested = [...filterColumns, 'method_idx', 'flagged'];
-    const narrowed = filterColumns.length > 0 || Boolean(q.methods?.length) || q.flagged === 'yes' || q.flagged === 'no';
-    const countIndex = narrowed ? await ensureCacheIndex(store, cache, tested) : undefined;
-    if (countIndex) countHint = hint(countIndex);
-    pagePlan = async (total: number) => {
-      const selective = total < src.run.results_count * 0.05;
-      if (selective && countIndex) return countHint;
-      if (sort === 'point') return '';
-      const lead = sortExpr ? sortExpr.column! : 'method_idx';
-      return hint(await ensureCacheIndex(store, cache, [lead, ...tested]));
-    };
-  }
-  const [counted] = await store.dialect.all<{ n: number }>(`select count(*) as n from ${src.from}${countHint}${whereOf(cond)}`, cond.params);
+  // No index on a run table: a count and a sorted page are each one pass over the run's
+  // rows of plain columns (tens of milliseconds for 1e6 results; see the api bench), and
+  // an index would cost every insert or a long build on first use.
+  const [counted] = await store.dialect.all<{ n: number }>(`select count(*) as n from ${src.from}${whereOf(cond)}`, cond.params);
   const total = Number(counted.n);
-  const pageHint = await pagePlan(total);
   // A missing value sorts below every number, on both stores.
   const nulls = store.dialect.nullsLow(dir);
-
+  const bySeq = col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ');
   const order =
-    sort === 'point'
-      ? `${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`
-      : sort === 'method'
-        ? `${col(src, 'method')} ${dir}, ${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`
-        : `${sortExpr!.sql} ${dir}${nulls}, ${col(src, 'seq').split(', ').map((c) => `${c} ${dir}`).join(', ')}`;
-  // From a cache, take seq (in every index) and look the result ids up for the page only.
+    sort === 'point' ? bySeq : sort === 'method' ? `${col(src, 'method')} ${dir}, ${bySeq}` : `${sortExpr!.sql} ${dir}${nulls}, ${bySeq}`;
   const picked = (
     await store.dialect.all<{ k: number }>(
-      `select ${src.cache ? 'c.seq' : col(src, 'id')} as k from ${src.from}${pageHint}${whereOf(cond)} order by ${order} limit ? offset ?`,
+      `select ${col(src, 'id')} as k from ${src.from}${whereOf(cond)} order by ${order} limit ? offset ?`,
       [...cond.params, ...(sortExpr?.params ?? []), pageSize, (page - 1) * pageSize],
     )
   ).map((r) => Number(r.k));
-  const ids = src.cache ? await resultIdsOf(store, src.cache, picked) : picked;
-  return { total, page, pageSize, rows: await readRows(store, ids) };
+  const rows = src.layout ? await tableRows(store, src, picked) : await jsonRows(store, picked);
+  return { total, page, pageSize, rows };
 }
 
-async function resultIdsOf(store: Store, cache: ResultsCache, seqs: number[]): Promise<number[]> {
-  if (seqs.length === 0) return [];
-  const rows = await store.dialect.all<{ seq: number; result_id: number }>(
-    `select seq, result_id from ${cache.table} where seq in (${seqs.map(() => '?').join(', ')})`,
-    seqs,
+/** Rows of a run table by seq, in the given order. */
+async function tableRows(store: Store, src: Source, seqs: number[]): Promise<ResultPageRow[]> {
+  const bySeq = new Map<number, ResultPageRow>();
+  const methods = src.run.methods;
+  await eachStoredResult(
+    store,
+    src.run.id,
+    methods.length,
+    (r) => bySeq.set(r.seq, { id: r.seq + 1, point: r.point, method: methods[r.method].id, inputs: r.inputs, outputs: r.outputs, flags: r.flags }),
+    { layout: src.layout, seqs },
   );
-  const bySeq = new Map(rows.map((r) => [Number(r.seq), Number(r.result_id)]));
   return seqs.map((q) => bySeq.get(q)!);
 }
 
-/** Full rows for result ids, in the given order. */
-async function readRows(store: Store, ids: number[]): Promise<ResultPageRow[]> {
+/** Full rows from points/results for result ids, in the given order. */
+async function jsonRows(store: Store, ids: number[]): Promise<ResultPageRow[]> {
   if (ids.length === 0) return [];
   const d = store.dialect;
   const raw = await d.all<{ id: number; point_idx: number; method: string; flags: string; inputs: string; outputs: string }>(
@@ -274,6 +278,10 @@ export interface ChartData {
  * at most `max` points however large the run.
  */
 export async function chartData(store: Store, runId: number, q: ChartQuery): Promise<ChartData> {
+  return readingRun(store, runId, () => chartOf(store, runId, q));
+}
+
+async function chartOf(store: Store, runId: number, q: ChartQuery): Promise<ChartData> {
   const max = Math.min(MAX_CHART_POINTS, Math.max(10, Math.floor(q.max ?? 2000)));
   const src = await openSource(store, runId);
   const d = store.dialect;
@@ -396,33 +404,28 @@ export async function compareRuns(store: Store, aId: number, bId: number, q: Com
   if (!b) throw new InputError(`no run ${bId} in this database`);
   const page = Math.max(1, Math.floor(q.page ?? 1));
   const pageSize = Math.min(MAX_PAGE_SIZE, Math.max(1, Math.floor(q.pageSize ?? 50)));
-  const d = store.dialect;
-  const read =
-    `select r.method, ${d.jsonText('p.inputs')} as inputs, ${d.jsonNumber('r.outputs', q.output)} as v from results r
-     join points p on p.run_id = r.run_id and p.idx = r.point_idx where r.run_id = ? order by r.point_idx, r.method_idx`;
-  const key = (method: string, inputs: string) => `${method}\u0000${canonical(inputs)}`;
+  const key = (method: string, inputs: Inputs) => `${method}\u0000${canonical(inputs)}`;
   const bValues = new Map<string, number | null>();
-  await d.each<{ method: string; inputs: string; v: unknown }>(read, [bId], (r) => {
-    bValues.set(key(r.method, r.inputs), typeof r.v === 'number' ? r.v : null);
+  await eachOutput(store, b, q.output, (method, inputs, v) => {
+    bValues.set(key(method, inputs), v);
   });
   const pairs: CompareRow[] = [];
   let changed = 0;
   let onlyA = 0;
   const matched = new Set<string>();
-  await d.each<{ method: string; inputs: string; v: unknown }>(read, [aId], (r) => {
-    const k = key(r.method, r.inputs);
+  await eachOutput(store, a, q.output, (method, inputs, av) => {
+    const k = key(method, inputs);
     if (!bValues.has(k)) {
       onlyA++;
       return;
     }
     matched.add(k);
-    const av = typeof r.v === 'number' ? r.v : null;
     const bv = bValues.get(k)!;
     const rel = av !== null && bv !== null && av !== 0 ? (bv - av) / Math.abs(av) : null;
     const differs = av === null || bv === null ? av !== bv : Math.abs(bv - av) > SAME * Math.max(Math.abs(av), Math.abs(bv));
     if (differs) changed++;
     if (q.changed === 'yes' && !differs) return;
-    pairs.push({ method: r.method, inputs: JSON.parse(r.inputs) as Inputs, a: av, b: bv, rel_diff: rel });
+    pairs.push({ method, inputs, a: av, b: bv, rel_diff: rel });
   });
   const onlyB = bValues.size - matched.size;
   return {
@@ -437,9 +440,24 @@ export async function compareRuns(store: Store, aId: number, bId: number, q: Com
   };
 }
 
-function canonical(json: string): string {
-  const value = JSON.parse(json) as Record<string, unknown>;
-  return JSON.stringify(Object.keys(value).sort().map((k) => [k, value[k]]));
+/** Each result's method, inputs and one output (null when missing or not a number), in point and method order. */
+async function eachOutput(store: Store, run: RunInfo, output: string, fn: (method: string, inputs: Inputs, value: number | null) => void): Promise<void> {
+  if (await hasRunTable(store, run.id)) {
+    await eachStoredResult(store, run.id, run.methods.length, (r) => {
+      const v = r.outputs[output];
+      fn(run.methods[r.method].id, r.inputs, typeof v === 'number' ? v : null);
+    });
+    return;
+  }
+  const d = store.dialect;
+  await d.each<{ method: string; inputs: string; v: unknown }>(
+    `select r.method, ${d.jsonText('p.inputs')} as inputs, ${d.jsonNumber('r.outputs', output)} as v from results r
+     join points p on p.run_id = r.run_id and p.idx = r.point_idx where r.run_id = ? order by r.point_idx, r.method_idx`,
+    [run.id],
+    (r) => fn(r.method, JSON.parse(r.inputs) as Inputs, typeof r.v === 'number' ? r.v : null),
+  );
 }
 
-export { CACHE_MIN_RESULTS };
+function canonical(value: Inputs): string {
+  return JSON.stringify(Object.keys(value).sort().map((k) => [k, value[k]]));
+}

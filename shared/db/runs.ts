@@ -1,6 +1,9 @@
-// A run's life in the database: created as `running`, advanced by the batch writer,
-// finished as done / failed / interrupted, and claimed again by `resume`.
+// A run's life in the database: created as `running` with its results table, advanced by
+// the batch writer, finished as done / failed / interrupted, claimed again by `resume`,
+// and deleted (a push that failed half-way).
+import { sql } from 'kysely';
 import { InputError } from '../physics/types.js';
+import { createRunTableSql, layoutOf, recountSql, runTableName } from './result-table.js';
 import type { RunStatus } from './schema.js';
 import type { Store } from './store.js';
 import { immediateTransaction } from './transaction.js';
@@ -26,7 +29,7 @@ export interface NewRunSpec {
 
 const now = () => new Date().toISOString();
 
-/** Stores the study and its version (once per content) and a new `running` run. */
+/** Stores the study and its version (once per content) and a new `running` run with its (empty) results table. */
 export async function createRun(store: Store, spec: NewRunSpec): Promise<number> {
   return immediateTransaction(store, async (db) => {
     const time = now();
@@ -77,11 +80,20 @@ export async function createRun(store: Store, spec: NewRunSpec): Promise<number>
         points_total: spec.pointsTotal,
         methods: JSON.stringify(spec.methods),
         error: null,
+        results_table: 1,
       })
       .returning('id')
       .executeTakeFirstOrThrow();
+    // Ids are never reused, but a table left by a deleted run must not lend it rows.
+    await sql.raw(`drop table if exists ${runTableName(run.id)}`).execute(db);
+    await sql.raw(createRunTableSql(store.kind, run.id)).execute(db);
     return run.id;
   });
+}
+
+/** Deletes a run with its results (its table, or its rows in points/results by cascade). */
+export async function deleteRun(store: Store, runId: number): Promise<void> {
+  await store.dialect.atomic([{ sql: `drop table if exists ${runTableName(runId)}` }, { sql: 'delete from runs where id = ?', params: [runId] }]);
 }
 
 export async function finishRun(store: Store, runId: number, status: Exclude<RunStatus, 'queued' | 'running'>, error?: string): Promise<void> {
@@ -140,7 +152,8 @@ export function resumeRefusal(runId: number, run: Pick<RunSource, 'status' | 'ho
  * Takes over an unfinished run for `resume` and returns the points already stored.
  * The refusal checks are repeated inside one IMMEDIATE transaction with the claim, so
  * two resumes of the same run cannot both win. The counters are recounted from the
- * rows, which are the truth after a kill -9.
+ * rows, which are the truth after a kill -9. The run's results must be in its table
+ * (prepareResume converts a run stored before migrations/0005_run_tables.ts first).
  */
 export async function claimRunForResume(
   store: Store,
@@ -149,16 +162,18 @@ export async function claimRunForResume(
   isAlive: (host: string, pid: number) => boolean,
 ): Promise<Set<number>> {
   return immediateTransaction(store, async (db) => {
-    const run = await db.selectFrom('runs').select(['status', 'host', 'pid']).where('id', '=', runId).executeTakeFirst();
+    const run = await db.selectFrom('runs').select(['status', 'host', 'pid', 'methods', 'results_table']).where('id', '=', runId).executeTakeFirst();
     if (!run) throw new InputError(`no run ${runId} in this database`);
     const refusal = resumeRefusal(runId, run, isAlive);
     if (refusal) throw new InputError(refusal);
-    const rows = await db.selectFrom('points').select('idx').where('run_id', '=', runId).execute();
-    const counts = await db
-      .selectFrom('results')
-      .select((eb) => [eb.fn.countAll<number>().as('results'), eb.fn.sum<number>('flagged').as('flagged')])
-      .where('run_id', '=', runId)
-      .executeTakeFirstOrThrow();
+    if (Number(run.results_table) !== 1) throw new Error(`internal: run ${runId} is stored in points/results; convert it before claiming it`);
+    const M = (JSON.parse(run.methods) as MethodVersion[]).length;
+    const table = runTableName(runId);
+    // A batch stores every method of its points at once: a point is done when its first method's row is there.
+    const done = await sql<{ seq: number }>`select seq from ${sql.raw(table)} where method_idx = 0`.execute(db);
+    const [counts] = (await sql<{ results: number; flagged: number | null }>`select count(*) as results, sum(flagged) as flagged from ${sql.raw(table)}`.execute(db)).rows;
+    const columns = await db.selectFrom('result_columns').select(['idx', 'role', 'name', 'kind']).where('run_id', '=', runId).execute();
+    for (const statement of recountSql(runId, layoutOf(columns, []))) await sql.raw(statement).execute(db);
     await db
       .updateTable('runs')
       .set({
@@ -168,12 +183,12 @@ export async function claimRunForResume(
         workers: me.workers,
         finished_at: null,
         error: null,
-        points_done: rows.length,
+        points_done: done.rows.length,
         results_count: Number(counts.results),
         flagged_count: Number(counts.flagged ?? 0),
       })
       .where('id', '=', runId)
       .execute();
-    return new Set(rows.map((r) => r.idx));
+    return new Set(done.rows.map((r) => Math.floor(Number(r.seq) / M)));
   });
 }

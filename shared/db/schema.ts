@@ -1,6 +1,8 @@
 // Kysely's typed view of the database (migrations/ creates it). Timestamps are ISO-8601
-// text; inputs and outputs are JSON columns (JSONB blobs on SQLite, json on PostgreSQL:
-// read and filter them through shared/db/dialect.ts).
+// text. A run's results are in its own table `run_results_<id>` (result-table.ts; made at
+// run time, so not listed here); runs stored before migrations/0005_run_tables.ts keep
+// theirs in points/results, whose inputs and outputs are JSON columns (JSONB blobs on
+// SQLite, json on PostgreSQL: read them through shared/db/dialect.ts).
 import type { Generated, Insertable, Selectable } from 'kysely';
 
 export const RUN_STATUSES = ['queued', 'running', 'done', 'failed', 'interrupted'] as const;
@@ -46,6 +48,8 @@ export interface RunsTable {
   reference: Generated<number>;
   /** 0002_dashboard: users.id of who started it from the dashboard or pushed it; null from the CLI. */
   started_by: number | null;
+  /** 0005_run_tables: 1 when the results are in run_results_<id>; 0 when in points/results. */
+  results_table: Generated<number>;
 }
 
 export interface PointsTable {
@@ -84,7 +88,11 @@ export interface Database {
   measurements: MeasurementsTable;
   mail_outbox: MailOutboxTable;
   audit_log: AuditLogTable;
-  result_caches: ResultCachesTable;
+  // 0005_run_tables
+  result_columns: ResultColumnsTable;
+  result_shapes: ResultShapesTable;
+  result_counts: ResultCountsTable;
+  result_stats: ResultStatsTable;
 }
 
 export type RunRow = Selectable<RunsTable>;
@@ -181,13 +189,40 @@ export interface AuditLogTable {
   ip: string | null;
 }
 
-export interface ResultCachesTable {
+// migrations/0005_run_tables.ts: the layout of each run's table (shared/db/result-layout.ts).
+
+export interface ResultColumnsTable {
   run_id: number;
-  /** `results_cache_<run_id>`: one row per result, one column per input and output name. */
-  table_name: string;
-  /** results_count of the run when the cache was built; a different count means stale. */
-  results_count: number;
-  /** JSON `{inputs: [names], outputs: [names]}`; column i_<k> / o_<k> holds name k. */
-  columns: string;
-  built_at: string;
+  /** Column c_<idx> of run_results_<run_id>. */
+  idx: number;
+  role: 'input' | 'output';
+  name: string;
+  kind: 'number' | 'string' | 'boolean' | 'json';
+}
+
+export interface ResultShapesTable {
+  run_id: number;
+  idx: number;
+  /** JSON array of column indices, in the key order of the inputs object. */
+  inputs: string;
+  /** JSON array of column indices, in the key order of the outputs object. */
+  outputs: string;
+}
+
+/** Per run and method: results and flagged results stored (kept by the batch writer). */
+export interface ResultCountsTable {
+  run_id: number;
+  method_idx: number;
+  results: number;
+  flagged: number;
+}
+
+/** Per run, method and number column: how many values, the lowest and the highest (kept by the batch writer). */
+export interface ResultStatsTable {
+  run_id: number;
+  method_idx: number;
+  column_idx: number;
+  count: number;
+  minimum: number;
+  maximum: number;
 }

@@ -14,6 +14,7 @@ import pg from 'pg';
 import { InputError } from '../physics/types.js';
 import { BUSY_TIMEOUT_MS } from './busy.js';
 import { postgresDialect, sqliteDialect, type Dialect, type DialectName } from './dialect.js';
+import { stopBackgroundConversions } from './legacy-results.js';
 import { migrateToLatest } from './migrate.js';
 import { isDatabaseUrl, redactUrl } from './path.js';
 import type { Database } from './schema.js';
@@ -99,5 +100,6 @@ function openPostgres(url: string): Store {
 }
 
 export async function closeStore(store: Store): Promise<void> {
+  await stopBackgroundConversions(store);
   await store.db.destroy(); // closes the better-sqlite3 connection or ends the pg pool
 }

@@ -1,6 +1,6 @@
 // What passes between the runner and its worker threads: the data each worker starts
 // with, one batch's task, and the computed batch it sends back.
-import type { EncodedBatch } from '../db/batch-writer.js';
+import type { ResultBatch } from '../db/result-layout.js';
 import type { SolvePlan } from '../physics/engine.js';
 import type { SweepSource } from '../study/sweep.js';
 
@@ -32,7 +32,46 @@ export function toRanges(indices: readonly number[]): number[] {
   return ranges;
 }
 
+/** The points of ranges [from, to, …], in order. */
+export function pointsIn(ranges: readonly number[]): number {
+  let n = 0;
+  for (let r = 0; r < ranges.length; r += 2) n += ranges[r + 1] - ranges[r];
+  return n;
+}
+
+/** Cuts ascending point ranges (flat [from, to, …]) into batches, front to back. */
+export class PointCursor {
+  private r = 0;
+  private at: number;
+
+  constructor(private readonly ranges: readonly number[]) {
+    this.at = ranges[0] ?? 0;
+  }
+
+  get done(): boolean {
+    return this.r >= this.ranges.length;
+  }
+
+  /** The next `count` points (fewer at the end) as ranges. */
+  next(count: number): number[] {
+    const taken: number[] = [];
+    let left = count;
+    while (left > 0 && this.r < this.ranges.length) {
+      const end = this.ranges[this.r + 1];
+      const to = Math.min(end, this.at + left);
+      taken.push(this.at, to);
+      left -= to - this.at;
+      this.at = to;
+      if (to === end) {
+        this.r += 2;
+        this.at = this.ranges[this.r] ?? 0;
+      }
+    }
+    return taken;
+  }
+}
+
 /** A computed batch and how long the computing took (for the adaptive batch size). */
-export interface ComputedBatch extends EncodedBatch {
+export interface ComputedBatch extends ResultBatch {
   computeMs: number;
 }

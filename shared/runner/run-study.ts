@@ -11,6 +11,7 @@ import { countPoints, entryLength, loadStudyFile, parseStudy, pointAt, type Load
 import {
   claimRunForResume,
   closeStore,
+  convertLegacyRun,
   createBatchWriter,
   createRun,
   finishRun,
@@ -23,8 +24,8 @@ import {
 } from '../db/index.js';
 import { BatchSizer } from './batches.js';
 import { defaultWorkers, gitCommit, hostName, processAlive } from './environment.js';
-import { createPool } from './pool.js';
-import { toRanges } from './batch-task.js';
+import { createPool, type SweepPool } from './pool.js';
+import { PointCursor, pointsIn, toRanges } from './batch-task.js';
 
 /** A study checked and ready to run; nothing has touched the database yet. */
 export interface PreparedStudy {
@@ -100,10 +101,20 @@ export function prepareStudy(loaded: LoadedStudy): PreparedStudy {
   return { loaded, plan, methods, total };
 }
 
+/** The pool for a study's points (its threads start loading at once). */
+function poolFor(prepared: PreparedStudy, workers: number): SweepPool {
+  const { inputs, sweep } = prepared.loaded.study;
+  return createPool(workers, { sweep: { inputs, sweep }, plan: prepared.plan, methodIds: prepared.methods.map((m) => m.id) });
+}
+
 export async function runStudy(store: Store, prepared: PreparedStudy, options: RunOptions = {}): Promise<RunOutcome> {
   const workers = resolveWorkers(options.workers);
   const { loaded } = prepared;
-  const runId = await createRun(store, {
+  // The worker threads load their modules while the run is being created.
+  const pool = prepared.total > 0 ? poolFor(prepared, workers) : undefined;
+  let runId: number;
+  try {
+    runId = await createRun(store, {
     study: { name: loaded.study.name, title: loaded.study.title ?? null, configuration: loaded.study.configuration },
     yaml: loaded.text,
     hash: loaded.hash,
@@ -114,9 +125,12 @@ export async function runStudy(store: Store, prepared: PreparedStudy, options: R
     host: hostName(),
     pid: process.pid,
     gitCommit: gitCommit(dirname(resolve(loaded.file))),
-  });
-  const todo = Array.from({ length: prepared.total }, (_, i) => i);
-  return execute(store, runId, prepared, todo, { results: 0, flagged: 0 }, workers, options);
+    });
+  } catch (e) {
+    await pool?.destroy();
+    throw e;
+  }
+  return execute(store, runId, prepared, prepared.total > 0 ? [0, prepared.total] : [], { results: 0, flagged: 0 }, workers, options, pool);
 }
 
 export interface ResumeOptions extends RunOptions {
@@ -144,6 +158,8 @@ export async function prepareResume(store: Store, runId: number, force = false):
   }
   const changed = methodChanges(source.methods, prepared.methods);
   if (changed) throw new InputError(`run ${runId} cannot be resumed with this version of Filmsweep: ${changed}; start a new run`);
+  // A run stored before run tables continues in its table: its rows are moved there first.
+  await convertLegacyRun(store, runId, { force: true });
   return { prepared, isAlive };
 }
 
@@ -151,8 +167,9 @@ export async function resumeRun(store: Store, runId: number, options: ResumeOpti
   const workers = resolveWorkers(options.workers);
   const { prepared, isAlive } = await prepareResume(store, runId, options.force);
   const donePoints = await claimRunForResume(store, runId, { host: hostName(), pid: process.pid, workers }, isAlive);
-  const todo: number[] = [];
-  for (let i = 0; i < prepared.total; i++) if (!donePoints.has(i)) todo.push(i);
+  const missing: number[] = [];
+  for (let i = 0; i < prepared.total; i++) if (!donePoints.has(i)) missing.push(i);
+  const todo = toRanges(missing);
   const counts = await store.db
     .selectFrom('runs')
     .select(['results_count', 'flagged_count'])
@@ -173,6 +190,7 @@ function resolveWorkers(workers: number | undefined): number {
   return n;
 }
 
+/** `todo`: the points to compute, as ascending ranges [from, to, …] (to excluded). */
 async function execute(
   store: Store,
   runId: number,
@@ -181,18 +199,19 @@ async function execute(
   counts: { results: number; flagged: number },
   workers: number,
   options: RunOptions,
+  pool?: SweepPool,
 ): Promise<RunOutcome> {
   const started = performance.now();
   const study = prepared.loaded.study.name;
   const total = prepared.total;
-  const doneAtStart = total - todo.length;
+  const doneAtStart = total - pointsIn(todo);
   let done = doneAtStart;
   let { results, flagged } = counts;
   options.onStart?.({ runId, study, total, done });
 
   let failure: unknown;
   try {
-    failure = await computeAndWrite(store, runId, prepared, todo, workers, options, (w) => {
+    failure = await computeAndWrite(store, runId, prepared, todo, workers, options, pool, (w) => {
       done += w.points;
       results += w.results;
       flagged += w.flagged;
@@ -221,11 +240,6 @@ async function execute(
   };
 }
 
-/**
- * Cuts `todo` into batches, has the pool compute them and writes each one as it
- * returns. Stops cutting on `stop`, on `cancel` (which also drops batches in flight) or
- * at the first failed batch; resolves with that batch's error, if any.
- */
 /** Points that share every sweep value but the last: the grid's innermost run. */
 function innermostLength(sweep: PreparedStudy['loaded']['study']['sweep']): number {
   const entries = Object.values(sweep.over);
@@ -233,6 +247,12 @@ function innermostLength(sweep: PreparedStudy['loaded']['study']['sweep']): numb
   return entryLength(entries[entries.length - 1]);
 }
 
+/**
+ * Cuts `todo` (point ranges) into batches, has the pool compute them and writes each one
+ * as it returns. Stops cutting on `stop`, on `cancel` (which also drops batches in
+ * flight) or at the first failed batch; resolves with that batch's error, if any. Memory
+ * stays that of the batches in flight, whatever the number of points.
+ */
 async function computeAndWrite(
   store: Store,
   runId: number,
@@ -240,24 +260,34 @@ async function computeAndWrite(
   todo: number[],
   workers: number,
   options: RunOptions,
+  given: SweepPool | undefined,
   onWritten: (w: { points: number; results: number; flagged: number }) => void,
 ): Promise<unknown> {
-  if (todo.length === 0) return undefined;
-  const methodIds = prepared.methods.map((m) => m.id);
-  const writer = createBatchWriter(store, runId, methodIds);
-  const { inputs, sweep } = prepared.loaded.study;
-  const pool = createPool(workers, { sweep: { inputs, sweep }, plan: prepared.plan, methodIds });
-  const sizer = new BatchSizer(todo.length, workers, options.batchSize, innermostLength(sweep));
+  const count = pointsIn(todo);
+  if (count === 0) {
+    await given?.destroy();
+    return undefined;
+  }
+  const pool = given ?? poolFor(prepared, workers);
+  let writer: ReturnType<typeof createBatchWriter>;
+  try {
+    writer = createBatchWriter(store, runId, prepared.methods.map((m) => m.id));
+  } catch (e) {
+    await pool.destroy();
+    throw e;
+  }
+  const { sweep } = prepared.loaded.study;
+  const sizer = new BatchSizer(count, workers, options.batchSize, innermostLength(sweep));
   const inFlight = options.inFlight ?? workers * 2;
   const limit = pLimit(inFlight);
   let failure: unknown;
   const stopped = () => options.stop?.aborted || options.cancel?.aborted || failure !== undefined;
 
-  const runBatch = async (batch: number[]) => {
+  const runBatch = async (ranges: number[]) => {
     if (stopped()) return;
-    const computed = await pool.run({ ranges: toRanges(batch) }, { signal: options.cancel ?? null });
+    const computed = await pool.run({ ranges }, { signal: options.cancel ?? null });
     if (options.cancel?.aborted) return;
-    sizer.observe(batch.length, computed.computeMs);
+    sizer.observe(computed.points.length, computed.computeMs);
     onWritten(await writer.write(computed));
   };
 
@@ -265,15 +295,13 @@ async function computeAndWrite(
   // free, so its size uses the latest timing and a stop leaves nothing queued.
   const running = new Set<Promise<void>>();
   try {
-    let cursor = 0;
-    while (cursor < todo.length && !stopped()) {
+    const cursor = new PointCursor(todo);
+    while (!cursor.done && !stopped()) {
       if (running.size >= inFlight) {
         await Promise.race(running);
         continue;
       }
-      const batch = todo.slice(cursor, cursor + sizer.next());
-      cursor += batch.length;
-      const task: Promise<void> = limit(runBatch, batch)
+      const task: Promise<void> = limit(runBatch, cursor.next(sizer.next()))
         .catch((e: unknown) => {
           if (isAbort(e) && options.cancel?.aborted) return; // dropped on purpose
           failure ??= e ?? new Error('a batch failed without an error');
