@@ -1,7 +1,7 @@
 // Progress of a run on stderr: a bar with points per second and time left on a terminal,
 // plain lines at most once a second otherwise (CI logs, pipes). stdout stays free for
 // the summary table or the --json document.
-import cliProgress from 'cli-progress';
+import type cliProgress from 'cli-progress';
 import type { RunProgress } from '../shared/runner/index.js';
 
 export interface ProgressReporter {
@@ -33,17 +33,18 @@ export function formatDuration(seconds: number | undefined): string {
   return `${Math.floor(m / 60)} h ${m % 60} min`;
 }
 
-export function createProgress(options: ProgressOptions = {}): ProgressReporter {
+export async function createProgress(options: ProgressOptions = {}): Promise<ProgressReporter> {
   const stream = options.stream ?? process.stderr;
   if (options.enabled === false) return { start() {}, update() {}, stop() {} };
-  return stream.isTTY ? barReporter(stream) : lineReporter(stream);
+  // The bar's package is loaded only for a terminal.
+  return stream.isTTY ? barReporter(stream, (await import('cli-progress')).default) : lineReporter(stream);
 }
 
-function barReporter(stream: NodeJS.WriteStream): ProgressReporter {
-  let bar: cliProgress.SingleBar | undefined;
+function barReporter(stream: NodeJS.WriteStream, bars: typeof cliProgress): ProgressReporter {
+  let bar: InstanceType<typeof cliProgress.SingleBar> | undefined;
   return {
     start(info) {
-      bar = new cliProgress.SingleBar(
+      bar = new bars.SingleBar(
         {
           stream,
           format: `run ${info.runId} ${info.study} |{bar}| {percentage}% {value}/{total} points | {rate} points/s | {left} left`,
@@ -52,7 +53,7 @@ function barReporter(stream: NodeJS.WriteStream): ProgressReporter {
           hideCursor: true,
           fps: 10,
         },
-        cliProgress.Presets.shades_classic,
+        bars.Presets.shades_classic,
       );
       bar.start(info.total, info.done, { rate: '–', left: '?' });
     },

@@ -40,7 +40,7 @@ export async function sweepWithReporting(
   opts: SweepCommandOptions,
   work: (options: RunOptions, interrupted: () => boolean) => AsyncGenerator<RunOutcome>,
 ): Promise<void> {
-  const progress = createProgress({ enabled: !opts.json || Boolean(process.stderr.isTTY) });
+  const progress = await createProgress({ enabled: !opts.json || Boolean(process.stderr.isTTY) });
   const interrupts = captureInterrupts((message) => {
     progress.stop();
     process.stderr.write(`filmsweep: ${message}\n`);

@@ -270,7 +270,7 @@ function countRows(db: string, runId: number): { points: number; results: number
   try {
     return c
       .prepare(
-        `select (select count(*) from ${table} where method_idx = 0) points,
+        `select (select count(*) from ${table} where seq % ${METHODS} = 0) points,
                 (select count(*) from ${table}) results,
                 (select count(*) from (select distinct seq from ${table})) "distinct"`,
       )

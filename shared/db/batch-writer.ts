@@ -101,7 +101,7 @@ function cell(values: ResultBatch['values'][number], r: number): string | number
  * unnest(one array per column), giving the seq of each row inserted.
  */
 function insertSql(runId: number, columns: number, dialect: 'sqlite' | 'postgres', kinds: ColumnKind[] = [], rows = 1): string {
-  const names = ['seq', 'method_idx', 'flagged', 'shape', 'flags', ...Array.from({ length: columns }, (_, k) => valueColumn(k))];
+  const names = ['seq', 'shape', 'flags', ...Array.from({ length: columns }, (_, k) => valueColumn(k))];
   if (dialect === 'sqlite') {
     const row = `(${names.map(() => '?').join(', ')})`;
     const into = `insert into ${runTableName(runId)} (${names.join(', ')}) values `;
@@ -109,7 +109,7 @@ function insertSql(runId: number, columns: number, dialect: 'sqlite' | 'postgres
     return rows === 1 ? `${into}${row} on conflict do nothing` : `${into}${Array(rows).fill(row).join(', ')}`;
   }
   const PG_ARRAY: Record<ColumnKind, string> = { number: 'float8[]', string: 'text[]', boolean: 'int[]', json: 'text[]' };
-  const types = ['bigint[]', 'int[]', 'int[]', 'int[]', 'text[]', ...kinds.map((k) => PG_ARRAY[k])];
+  const types = ['bigint[]', 'int[]', 'text[]', ...kinds.map((k) => PG_ARRAY[k])];
   return (
     `with ins as (insert into ${runTableName(runId)} (${names.join(', ')}) ` +
     `select * from unnest(${types.map((t, i) => `$${i + 1}::${t}`).join(', ')}) as u(${names.join(', ')}) order by u.seq ` +
@@ -193,19 +193,16 @@ function sqliteWriter(sqlite: BetterSqlite3.Database, runId: number, M: number, 
       for (const s of layoutAdditions('sqlite', runId, mapping.added)) sqlite.prepare(s.sql).run(...(s.params ?? []));
     }
     const C = current.columns.length;
-    const W = 5 + C;
+    const W = 3 + C;
     const from = batchColumnOf(current, mapping);
     const { points, values, shape, flags } = batch;
     const shapes = mapping.shapes;
     /** Writes result r's parameters into args from position o. */
     const fill = (args: (string | number | null)[], o: number, r: number, seq: number) => {
-      const f = flags[r];
       args[o] = seq;
-      args[o + 1] = r % M;
-      args[o + 2] = f === null ? 0 : 1;
-      args[o + 3] = shapes[shape[r]];
-      args[o + 4] = f;
-      for (let c = 0; c < C; c++) args[o + 5 + c] = from[c] < 0 ? null : cell(values[from[c]], r);
+      args[o + 1] = shapes[shape[r]];
+      args[o + 2] = flags[r];
+      for (let c = 0; c < C; c++) args[o + 3 + c] = from[c] < 0 ? null : cell(values[from[c]], r);
     };
     let lo = Infinity;
     let hi = -Infinity;
@@ -306,14 +303,10 @@ function postgresWriter(pool: pg.Pool, runId: number, M: number, counters: boole
         const from = batchColumnOf(current, mapping);
         const n = batch.shape.length;
         const seq = new Array<number>(n);
-        const method = new Array<number>(n);
-        const flaggedOf = new Array<number>(n);
         const shapes = new Array<number>(n);
         for (let i = 0, r = 0; i < batch.points.length; i++) {
           for (let m = 0; m < M; m++, r++) {
             seq[r] = batch.points[i] * M + m;
-            method[r] = m;
-            flaggedOf[r] = batch.flags[r] === null ? 0 : 1;
             shapes[r] = mapping.shapes[batch.shape[r]];
           }
         }
@@ -322,7 +315,7 @@ function postgresWriter(pool: pg.Pool, runId: number, M: number, counters: boole
           return Array.from({ length: n }, (_, r) => (values ? cell(values, r) : null));
         });
         const kinds = current.columns.map((c) => c.kind);
-        const ins = await client.query(insertSql(runId, C, 'postgres', kinds), [seq, method, flaggedOf, shapes, batch.flags, ...columns]);
+        const ins = await client.query(insertSql(runId, C, 'postgres', kinds), [seq, shapes, batch.flags, ...columns]);
         const inserted = new Uint8Array(n);
         const resultOf = new Map<number, number>(); // seq → result index in this batch
         for (let r = 0; r < n; r++) resultOf.set(seq[r], r);

@@ -3,9 +3,9 @@
 // back as the engine returned them. The codec itself is result-layout.ts; writing is
 // batch-writer.ts.
 //
-// Fixed columns: seq (point × methods + method, the rowid on SQLite), method_idx, flagged
-// (0/1), shape (result_shapes.idx) and flags (JSON array, null when none); then c_<k> for
-// result_columns.idx = k. SQLite columns c_<k> have no declared type, so every value keeps
+// Fixed columns: seq (point × methods + method, the rowid on SQLite: the method is
+// seq % methods), shape (result_shapes.idx) and flags (JSON array, null when none); then
+// c_<k> for result_columns.idx = k. Nothing more per row: each column costs every insert. SQLite columns c_<k> have no declared type, so every value keeps
 // its own (a double stays a double); on PostgreSQL they are typed by kind.
 import type { DialectName, Statement } from './dialect.js';
 import { RunLayout, type ColumnKind, type LayoutMapping, type ResultColumn, type ResultShape } from './result-layout.js';
@@ -24,10 +24,7 @@ export function valueColumn(k: number): string {
 
 export function createRunTableSql(dialect: DialectName, runId: number): string {
   const seq = dialect === 'postgres' ? 'bigint' : 'integer';
-  return (
-    `create table if not exists ${runTableName(runId)} (seq ${seq} primary key, method_idx integer not null, ` +
-    'flagged integer not null, shape integer not null, flags text)'
-  );
+  return `create table if not exists ${runTableName(runId)} (seq ${seq} primary key, shape integer not null, flags text)`;
 }
 
 const PG_TYPE: Record<ColumnKind, string> = { number: 'float8', string: 'text', boolean: 'integer', json: 'text' };
@@ -54,22 +51,33 @@ export function layoutAdditions(dialect: DialectName, runId: number, added: Layo
  * SQL that recounts a run's result_counts and result_stats from its rows (resume: the
  * rows are the truth). Numbers only in the text: the run id and column indices.
  */
-export function recountSql(runId: number, layout: RunLayout): string[] {
+export function recountSql(runId: number, methods: number, layout: RunLayout): string[] {
   const table = runTableName(runId);
   const id = Math.floor(runId);
+  const method = methodSql('', methods);
   return [
     `delete from result_counts where run_id = ${id}`,
     `delete from result_stats where run_id = ${id}`,
-    `insert into result_counts (run_id, method_idx, results, flagged) select ${id}, method_idx, count(*), coalesce(sum(flagged), 0) from ${table} group by method_idx`,
+    `insert into result_counts (run_id, method_idx, results, flagged) select ${id}, ${method}, count(*), count(flags) from ${table} group by ${method}`,
     ...layout.columns.flatMap((c, k) =>
       c.kind !== 'number'
         ? []
         : [
-            `insert into result_stats (run_id, method_idx, column_idx, count, minimum, maximum) select ${id}, method_idx, ${k}, count(${valueColumn(k)}), ` +
-              `min(${valueColumn(k)}), max(${valueColumn(k)}) from ${table} where ${valueColumn(k)} is not null group by method_idx`,
+            `insert into result_stats (run_id, method_idx, column_idx, count, minimum, maximum) select ${id}, ${method}, ${k}, count(${valueColumn(k)}), ` +
+              `min(${valueColumn(k)}), max(${valueColumn(k)}) from ${table} where ${valueColumn(k)} is not null group by ${method}`,
           ],
     ),
   ];
+}
+
+/** SQL of a row's method index (`alias.` before the column, or ''). */
+export function methodSql(alias: string, methods: number): string {
+  return `(${alias}seq % ${Math.floor(methods)})`;
+}
+
+/** SQL of a row's flagged mark, 0 or 1. */
+export function flaggedSql(alias: string): string {
+  return `(case when ${alias}flags is null then 0 else 1 end)`;
 }
 
 /** Runs a query with `?` placeholders and resolves to its rows (the store's, or a transaction's). */
@@ -112,7 +120,7 @@ export interface StoredResult {
 /** SQL selecting a run table's rows in the order eachStoredResult decodes them. */
 function selectRows(runId: number, layout: RunLayout): string {
   const values = layout.columns.map((_, k) => `, ${valueColumn(k)}`).join('');
-  return `select seq, method_idx, shape, flags${values} from ${runTableName(runId)}`;
+  return `select seq, shape, flags${values} from ${runTableName(runId)}`;
 }
 
 /** PostgreSQL reads in pieces of this many rows (SQLite streams). */
@@ -136,17 +144,16 @@ export async function eachStoredResult(
   let lastInputs: Inputs = {};
   const decode = (row: unknown[]) => {
     const seq = Number(row[0]);
-    const shape = Number(row[2]);
+    const shape = Number(row[1]);
     const point = Math.floor(seq / methods);
-    const { inputs, outputs } = layout.decode(shape, (c) => row[4 + c]);
-    if (point === lastPoint && layout.sameInputs(shape, lastShape)) {
-      fn({ seq, point, method: Number(row[1]), inputs: lastInputs, outputs, flags: row[3] === null ? [] : JSON.parse(String(row[3])) });
-      return;
+    const flags = row[2] === null ? [] : (JSON.parse(String(row[2])) as string[]);
+    const { inputs, outputs } = layout.decode(shape, (c) => row[3 + c]);
+    if (!(point === lastPoint && layout.sameInputs(shape, lastShape))) {
+      lastPoint = point;
+      lastShape = shape;
+      lastInputs = inputs;
     }
-    lastPoint = point;
-    lastShape = shape;
-    lastInputs = inputs;
-    fn({ seq, point, method: Number(row[1]), inputs, outputs, flags: row[3] === null ? [] : JSON.parse(String(row[3])) });
+    fn({ seq, point, method: seq - point * methods, inputs: lastInputs, outputs, flags });
   };
   const base = selectRows(runId, layout);
   if (options.seqs) {

@@ -11,7 +11,7 @@ import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import { convertInBackground, readingRun } from './legacy-results.js';
 import { getRun, type RunInfo } from './queries.js';
 import type { RunLayout } from './result-layout.js';
-import { eachStoredResult, hasRunTable, loadLayout, runTableName, valueColumn } from './result-table.js';
+import { eachStoredResult, flaggedSql, hasRunTable, loadLayout, methodSql, runTableName, valueColumn } from './result-table.js';
 import type { Store } from './store.js';
 
 export const MAX_PAGE_SIZE = 500;
@@ -128,7 +128,7 @@ function valueExpr(store: Store, src: Source, name: string): Expr {
 }
 
 function col(src: Source, what: 'seq' | 'method' | 'flagged' | 'id'): string {
-  if (src.layout) return { seq: 'c.seq', method: 'c.method_idx', flagged: 'c.flagged', id: 'c.seq' }[what];
+  if (src.layout) return { seq: 'c.seq', method: methodSql('c.', src.run.methods.length), flagged: flaggedSql('c.'), id: 'c.seq' }[what];
   return { seq: 'r.point_idx, r.method_idx', method: 'r.method_idx', flagged: 'r.flagged', id: 'r.id' }[what];
 }
 

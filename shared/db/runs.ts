@@ -3,7 +3,7 @@
 // and deleted (a push that failed half-way).
 import { sql } from 'kysely';
 import { InputError } from '../physics/types.js';
-import { createRunTableSql, layoutOf, recountSql, runTableName } from './result-table.js';
+import { createRunTableSql, layoutOf, methodSql, recountSql, runTableName } from './result-table.js';
 import type { RunStatus } from './schema.js';
 import type { Store } from './store.js';
 import { immediateTransaction } from './transaction.js';
@@ -170,10 +170,10 @@ export async function claimRunForResume(
     const M = (JSON.parse(run.methods) as MethodVersion[]).length;
     const table = runTableName(runId);
     // A batch stores every method of its points at once: a point is done when its first method's row is there.
-    const done = await sql<{ seq: number }>`select seq from ${sql.raw(table)} where method_idx = 0`.execute(db);
-    const [counts] = (await sql<{ results: number; flagged: number | null }>`select count(*) as results, sum(flagged) as flagged from ${sql.raw(table)}`.execute(db)).rows;
+    const done = await sql<{ seq: number }>`select seq from ${sql.raw(table)} where ${sql.raw(methodSql('', M))} = 0`.execute(db);
+    const [counts] = (await sql<{ results: number; flagged: number | null }>`select count(*) as results, count(flags) as flagged from ${sql.raw(table)}`.execute(db)).rows;
     const columns = await db.selectFrom('result_columns').select(['idx', 'role', 'name', 'kind']).where('run_id', '=', runId).execute();
-    for (const statement of recountSql(runId, layoutOf(columns, []))) await sql.raw(statement).execute(db);
+    for (const statement of recountSql(runId, M, layoutOf(columns, []))) await sql.raw(statement).execute(db);
     await db
       .updateTable('runs')
       .set({

@@ -10,7 +10,7 @@ import { existsSync, mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import BetterSqlite3 from 'better-sqlite3';
 import { Kysely, PostgresDialect, SqliteDialect } from 'kysely';
-import pg from 'pg';
+import type pg from 'pg';
 import { InputError } from '../physics/types.js';
 import { BUSY_TIMEOUT_MS } from './busy.js';
 import { postgresDialect, sqliteDialect, type Dialect, type DialectName } from './dialect.js';
@@ -41,7 +41,7 @@ export interface OpenOptions {
 }
 
 export async function openStore(path: string, options: OpenOptions = {}): Promise<Store> {
-  const store = isDatabaseUrl(path) ? openPostgres(path) : openSqlite(path, options);
+  const store = isDatabaseUrl(path) ? await openPostgres(path) : openSqlite(path, options);
   if (options.migrate ?? true) {
     try {
       store.migrated = await migrateToLatest(store.db);
@@ -77,16 +77,19 @@ function openSqlite(path: string, options: OpenOptions): Store {
 const PG_INT8 = 20;
 const PG_NUMERIC = 1700;
 const PG_JSON = 114;
-const pgTypes = {
-  getTypeParser(oid: number, format?: 'text' | 'binary') {
-    if (oid === PG_INT8 || oid === PG_NUMERIC) return (v: string) => Number(v);
-    if (oid === PG_JSON) return (v: string) => v;
-    return pg.types.getTypeParser(oid, format);
-  },
-} as pg.CustomTypesConfig;
+const pgTypes = (types: typeof pg.types) =>
+  ({
+    getTypeParser(oid: number, format?: 'text' | 'binary') {
+      if (oid === PG_INT8 || oid === PG_NUMERIC) return (v: string) => Number(v);
+      if (oid === PG_JSON) return (v: string) => v;
+      return types.getTypeParser(oid, format);
+    },
+  }) as pg.CustomTypesConfig;
 
-function openPostgres(url: string): Store {
-  const pool = new pg.Pool({ connectionString: url, types: pgTypes, max: 10 });
+async function openPostgres(url: string): Promise<Store> {
+  // pg (and the fetch machinery it touches) is loaded only for a PostgreSQL store.
+  const { default: pg } = await import('pg');
+  const pool = new pg.Pool({ connectionString: url, types: pgTypes(pg.types), max: 10 });
   // An idle client losing its server must not crash the process; the next query reports it.
   pool.on('error', () => undefined);
   const db = new Kysely<Database>({ dialect: new PostgresDialect({ pool }) });

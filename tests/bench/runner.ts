@@ -1,66 +1,119 @@
-// End to end (YAML → worker pool → SQLite) against a raw better-sqlite3 insert loop of
-// the same rows, and 1 against 2 workers on a compute-heavy similarity sweep.
+// End to end: `filmsweep run` as a user types it (a new process: start-up, validation,
+// worker pool, SQLite, the summary table), 1,000,000 correlation results with 2 workers,
+// against a raw better-sqlite3 insert loop of the same number of rows into a narrow table
+// (run, point, method, Re, Pr, Nu), in the same bench run. Then the run's peak memory at
+// 250,000 and 1,000,000 results, and the first dashboard page of the finished run (no copy
+// is built on first view). Also 1 against 2 workers on a compute-heavy similarity sweep.
+import { spawn } from 'node:child_process';
 import { once } from 'node:events';
-import { join } from 'node:path';
+import { readFileSync } from 'node:fs';
+import { join, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import BetterSqlite3 from 'better-sqlite3';
-import { closeStore, openStore } from '../../shared/db/index.js';
+import { closeStore, getRun, openStore, queryResults, resolveRunRef } from '../../shared/db/index.js';
+import { eachStoredResult } from '../../shared/db/result-table.js';
 import { runStudyFile } from '../../shared/runner/index.js';
 import { fmt, time, timeAsync, type BenchContext } from './timing.js';
 
-const E2E_STUDY = `name: bench-pipe-map
+const BIN = resolve('bin/filmsweep.js');
+const PEAK_RSS = fileURLToPath(new URL('./peak-rss.js', import.meta.url));
+/** Goal (issue 14): end to end at least this fraction of the raw insert loop's rate. */
+const GOAL = 0.4;
+
+const pipeMap = (name: string, reCount: number) => `name: ${name}
 configuration: pipe
 methods: [dittus-boelter, gnielinski]
 sweep:
   over:
-    Re: {from: 1.0e4, to: 1.0e6, count: 1000, spacing: log}
+    Re: {from: 1.0e4, to: 1.0e6, count: ${reCount}, spacing: log}
     Pr: {from: 0.7, to: 100, count: 500, spacing: log}
 `;
 
-export async function benchEndToEnd(ctx: BenchContext) {
-  const file = ctx.study('bench-pipe-map', E2E_STUDY);
-  const db = join(ctx.dir, 'e2e.db');
-  const e2e = await timeAsync(() => runStudyFile(file, { db, workers: 2 }));
-  const results = e2e.value.results;
-  const e2eRate = results / e2e.seconds;
+/** `filmsweep run FILE --workers 2` in a new process: wall seconds from spawn to exit, and its peak RSS. */
+async function cliRun(ctx: BenchContext, file: string, db: string): Promise<{ seconds: number; peakRss: number }> {
+  const rssFile = join(ctx.dir, 'peak-rss.txt');
+  const t0 = performance.now();
+  const child = spawn(process.execPath, ['--import', PEAK_RSS, BIN, 'run', file, '--db', db, '--workers', '2'], {
+    stdio: ['ignore', 'ignore', 'inherit'],
+    env: { ...process.env, FILMSWEEP_PEAK_RSS_FILE: rssFile, NO_COLOR: '1' },
+  });
+  const [code] = await once(child, 'exit');
+  const seconds = (performance.now() - t0) / 1000;
+  if (code !== 0) throw new Error(`filmsweep run ${file} exited with ${code}`);
+  return { seconds, peakRss: Number(readFileSync(rssFile, 'utf8')) };
+}
 
-  // The same rows, read back, inserted by a plain loop of prepared statements into a
-  // fresh database with the same schema, 1000 points per transaction.
-  const src = new BetterSqlite3(db, { readonly: true });
-  const points = src.prepare('select idx, json(inputs) as inputs from points where run_id = ? order by idx').raw().all(e2e.value.id) as [number, string][];
-  const rows = src
-    .prepare('select point_idx, method_idx, method, json(outputs), flags, flagged from results where run_id = ? order by point_idx, method_idx')
-    .raw()
-    .all(e2e.value.id) as [number, number, string, string, string, number][];
-  src.close();
-  const rawPath = join(ctx.dir, 'raw.db');
-  await closeStore(await openStore(rawPath)); // same migrations, same schema
-  const raw = new BetterSqlite3(rawPath);
+/** The run's (point, method, Re, Pr, Nu) rows, read back into memory for the raw loop. */
+async function narrowRows(db: string): Promise<{ point: Int32Array; method: Int32Array; Re: Float64Array; Pr: Float64Array; Nu: Float64Array }> {
+  const store = await openStore(db);
+  try {
+    const run = await resolveRunRef(store, 'latest');
+    const n = run.results_count;
+    const rows = { point: new Int32Array(n), method: new Int32Array(n), Re: new Float64Array(n), Pr: new Float64Array(n), Nu: new Float64Array(n) };
+    let k = 0;
+    await eachStoredResult(store, run.id, run.methods.length, (r) => {
+      rows.point[k] = r.point;
+      rows.method[k] = r.method;
+      rows.Re[k] = r.inputs.Re as number;
+      rows.Pr[k] = r.inputs.Pr as number;
+      rows.Nu[k] = r.outputs.Nu;
+      k++;
+    });
+    return rows;
+  } finally {
+    await closeStore(store);
+  }
+}
+
+/** A plain loop of one prepared INSERT per row, 2000 rows per transaction, into a fresh file (WAL, synchronous=NORMAL). */
+function rawInsertLoop(path: string, rows: Awaited<ReturnType<typeof narrowRows>>): number {
+  const raw = new BetterSqlite3(path);
   raw.pragma('journal_mode = WAL');
   raw.pragma('synchronous = NORMAL');
-  raw.pragma('foreign_keys = OFF');
-  const insertPoint = raw.prepare('insert into points (run_id, idx, inputs) values (1, ?, jsonb(?))');
-  const insertResult = raw.prepare(
-    'insert into results (run_id, point_idx, method_idx, method, outputs, flags, flagged) values (1, ?, ?, ?, jsonb(?), ?, ?)',
-  );
-  const M = rows.length / points.length;
+  raw.exec('create table results (run integer, point integer, method integer, Re real, Pr real, Nu real)');
+  const insert = raw.prepare('insert into results (run, point, method, Re, Pr, Nu) values (?, ?, ?, ?, ?, ?)');
   const batch = raw.transaction((from: number, to: number) => {
-    for (let i = from; i < to; i++) {
-      insertPoint.run(points[i][0], points[i][1]);
-      for (let k = i * M; k < (i + 1) * M; k++) {
-        const r = rows[k];
-        insertResult.run(r[0], r[1], r[2], r[3], r[4], r[5]);
-      }
-    }
+    for (let k = from; k < to; k++) insert.run(1, rows.point[k], rows.method[k], rows.Re[k], rows.Pr[k], rows.Nu[k]);
   });
-  const rawTime = time(() => {
-    for (let i = 0; i < points.length; i += 1000) batch(i, Math.min(points.length, i + 1000));
+  const n = rows.point.length;
+  const t = time(() => {
+    for (let k = 0; k < n; k += 2000) batch(k, Math.min(n, k + 2000));
   });
   raw.close();
-  const rawRate = rows.length / rawTime.seconds;
-  console.log(`end to end, YAML → SQLite (2 workers): ${fmt(results)} results in ${fmt(e2e.seconds)} s = ${fmt(e2eRate)} results/s`);
-  console.log(`raw better-sqlite3 insert loop, same rows:  ${fmt(rows.length)} results in ${fmt(rawTime.seconds)} s = ${fmt(rawRate)} results/s`);
-  console.log(`  ratio end to end / raw insert: ${fmt(e2eRate / rawRate)} (goal ≥ 0.5)`);
+  return t.seconds;
+}
+
+const MiB = 1024 * 1024;
+
+export async function benchEndToEnd(ctx: BenchContext) {
+  const file = ctx.study('bench-pipe-map', pipeMap('bench-pipe-map', 1000));
+  const db = join(ctx.dir, 'e2e.db');
+  const e2e = await cliRun(ctx, file, db);
+  const rows = await narrowRows(db);
+  const results = rows.point.length;
+  const rawSeconds = rawInsertLoop(join(ctx.dir, 'raw.db'), rows);
+  const ratio = rawSeconds / e2e.seconds;
+  console.log(`end to end, \`filmsweep run\` (new process, 2 workers, summary table): ${fmt(results)} results in ${fmt(e2e.seconds)} s = ${fmt(results / e2e.seconds)} results/s`);
+  console.log(`raw better-sqlite3 insert loop, same number of rows into (run, point, method, Re, Pr, Nu): ${fmt(rawSeconds)} s = ${fmt(results / rawSeconds)} results/s`);
+  console.log(`  ratio end to end / raw insert: ${fmt(ratio)} (goal ≥ ${GOAL})`);
+
+  // Memory: the same sweep at a quarter of the points; batches in flight bound it, not the points.
+  const quarter = await cliRun(ctx, ctx.study('bench-pipe-quarter', pipeMap('bench-pipe-quarter', 250)), join(ctx.dir, 'quarter.db'));
+  console.log(`peak memory of the run (RSS, all threads): ${fmt(quarter.peakRss / MiB)} MiB at 250,000 results, ${fmt(e2e.peakRss / MiB)} MiB at ${fmt(results)} results`);
+  console.log(`  ratio 1e6 / 2.5e5 results: ${fmt(e2e.peakRss / quarter.peakRss)} (bounded: no growth with the points beyond the batches in flight; results ×4)`);
+
+  // Ready for the dashboard as it is: the first filtered, sorted page straight after the run.
+  const store = await openStore(db);
+  try {
+    const run = (await getRun(store, (await resolveRunRef(store, 'latest')).id))!;
+    const first = await timeAsync(() =>
+      queryResults(store, run.id, { page: 1, pageSize: 50, sort: 'Nu', order: 'desc', methods: ['gnielinski'], filters: [{ name: 'Re', min: 2e4, max: 5e5 }, { name: 'Pr', min: 1 }] }),
+    );
+    console.log(`first dashboard page of the finished run (filter Re and Pr, sort by Nu, no copy built on first view): ${fmt(first.seconds * 1000)} ms, ${fmt(first.value.total)} rows match`);
+  } finally {
+    await closeStore(store);
+  }
 }
 
 // 2400 m values: about 9 s on one thread, so the fixed start-up of a run (about 0.4 s of
