@@ -44,9 +44,16 @@ function prepare(points: number): PreparedStudy {
 async function snapshot(runId: number): Promise<string> {
   const { run, rows } = await getRunRows(store, runId);
   const page = await queryResults(store, runId, { sort: 'Nu', order: 'desc', pageSize: 30, filters: [{ name: 'Re', min: 1e4 }] });
-  const chart = await chartData(store, runId, { x: 'Re', y: 'Nu', max: 50 });
+  // Downsampled and not, by method and by a second input, narrowed by method and value: the
+  // run table's one-pass chart (SQLite) and the SQL of the JSON rows must give the same points.
+  const charts = [
+    await chartData(store, runId, { x: 'Re', y: 'Nu', max: 50 }),
+    await chartData(store, runId, { x: 'Re', y: 'Nu', max: 20_000 }),
+    await chartData(store, runId, { x: 'Re', y: 'f', series: 'Pr', methods: ['gnielinski'], max: 100 }),
+    await chartData(store, runId, { x: 'Re', y: 'Nu', series: 'Pr', filters: [{ name: 'Re', min: 1e4, max: 5e5 }], max: 300 }),
+  ];
   const summary = await getRunSummary(store, runId);
-  return JSON.stringify({ run, rows, page: { ...page, rows: page.rows.map(({ id: _id, ...r }) => r) }, chart, summary });
+  return JSON.stringify({ run, rows, page: { ...page, rows: page.rows.map(({ id: _id, ...r }) => r) }, charts, summary });
 }
 
 const count = async (query: string, ...params: unknown[]) => Number((await store.dialect.all<{ n: unknown }>(query, params))[0].n);

@@ -10,7 +10,7 @@ import { getMethod } from '../physics/catalogue.js';
 import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import { convertInBackground, readingRun } from './legacy-results.js';
 import { getRun, type RunInfo } from './queries.js';
-import type { RunLayout } from './result-layout.js';
+import { decodeValue, type RunLayout } from './result-layout.js';
 import { eachStoredResult, flaggedSql, hasRunTable, loadLayout, methodSql, runTableName, valueColumn } from './result-table.js';
 import type { Store } from './store.js';
 
@@ -76,6 +76,8 @@ interface Source {
 interface Expr {
   sql: string;
   params: unknown[];
+  /** The run-table column, for a run with its table. */
+  column?: number;
 }
 
 async function openSource(store: Store, runId: number): Promise<Source> {
@@ -117,7 +119,7 @@ function valueExpr(store: Store, src: Source, name: string): Expr {
   // An output wins over an input of the same name: it is what the method computed.
   if (src.layout) {
     const column = src.layout.anyColumn(name);
-    if (column !== undefined) return { sql: `c.${valueColumn(column)}`, params: [] };
+    if (column !== undefined) return { sql: `c.${valueColumn(column)}`, params: [], column };
   } else if (src.columns.outputs.includes(name)) {
     return { sql: store.dialect.jsonNumber('r.outputs', name), params: [] };
   } else if (src.columns.inputs.includes(name)) {
@@ -291,16 +293,23 @@ async function chartOf(store: Store, runId: number, q: ChartQuery): Promise<Char
   const bySeries = q.series && q.series !== 'method' ? valueExpr(store, src, q.series) : undefined;
   const m = col(src, 'method');
   const f = col(src, 'flagged');
+  // s: the series as one text key (grouping); v: the value of the series input (its label).
   const seriesSql = bySeries ? `${m} || '|' || ${d.labelText(bySeries.sql)}` : `${m}`;
-  const baseParams = [...(bySeries?.params ?? []), ...x.params, ...y.params, ...cond.params, ...x.params, ...y.params];
+  const baseParams = [...(bySeries?.params ?? []), ...(bySeries?.params ?? []), ...x.params, ...y.params, ...cond.params, ...x.params, ...y.params];
   // Numbers only: a string or switch value cannot be plotted.
   const numeric = (e: Expr) => d.isNumber(e.sql);
   const base =
-    `select ${seriesSql} as s, ${m} as m, ${x.sql} as x, ${y.sql} as y, ${f} as f from ${src.from}` +
+    `select ${seriesSql} as s, ${bySeries ? bySeries.sql : 'null'} as v, ${m} as m, ${x.sql} as x, ${y.sql} as y, ${f} as f from ${src.from}` +
     `${whereOf(cond)}${cond.sql.length ? ' and ' : ' where '}${numeric(x)} and ${numeric(y)}`;
+  const label = (v: unknown) => (bySeries?.column !== undefined && src.layout ? decodeValue(src.layout.columns[bySeries.column].kind, v) : v);
 
-  const seriesRows = await d.all<{ s: string; m: number; n: number; lo: number; hi: number }>(
-    `with src as (${base}) select s, m, count(*) as n, min(x) as lo, max(x) as hi from src group by s, m order by m, s`,
+  if (d.visitRows && src.layout) {
+    const found = await envelopeInOnePass(store, src, q, { base, baseParams, x, bySeries: Boolean(bySeries), max });
+    return chartResult(src, q, Boolean(bySeries), found, label);
+  }
+
+  const seriesRows = await d.all<{ s: string; v: unknown; m: number; n: number; lo: number; hi: number }>(
+    `with src as (${base}) select s, min(v) as v, m, count(*) as n, min(x) as lo, max(x) as hi from src group by s, m`,
     baseParams,
   );
   if (seriesRows.length > MAX_SERIES) {
@@ -333,15 +342,139 @@ async function chartOf(store: Store, runId: number, q: ChartQuery): Promise<Char
     }
     for (const list of points.values()) list.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
   }
+  const series = seriesRows.map((r) => ({ m: Number(r.m), v: r.v, points: points.get(String(r.s)) ?? [] }));
+  return chartResult(src, q, Boolean(bySeries), { total, downsampled, series }, label);
+}
 
+interface SeriesPoints {
+  total: number;
+  downsampled: boolean;
+  series: { m: number; v: unknown; points: [number, number, 0 | 1][] }[];
+}
+
+/** Series in method order, then by the value of the series input (numbers by size); labels as JavaScript writes the value. */
+function chartResult(src: Source, q: ChartQuery, bySeries: boolean, found: SeriesPoints, label: (v: unknown) => unknown): ChartData {
   const uncertainty: Record<string, number> = {};
-  const series: ChartSeries[] = seriesRows.map((s) => {
+  const ordered = [...found.series].sort((a, b) => a.m - b.m || compareValues(a.v, b.v));
+  const series: ChartSeries[] = ordered.map((s) => {
     const method = src.run.methods[s.m].id;
     uncertainty[method] ??= methodUncertainty(src.run.configuration, method);
-    const value = bySeries ? String(s.s).slice(String(s.m).length + 1) : undefined;
-    return { name: bySeries ? `${method}, ${q.series} = ${value}` : method, method, points: points.get(String(s.s)) ?? [] };
+    const value = s.v === null || s.v === undefined ? '' : String(label(s.v));
+    return { name: bySeries ? `${method}, ${q.series} = ${value}` : method, method, points: s.points };
   });
-  return { x: q.x, y: q.y, total, downsampled, series, uncertainty };
+  return { x: q.x, y: q.y, total: found.total, downsampled: found.downsampled, series, uncertainty };
+}
+
+function compareValues(a: unknown, b: unknown): number {
+  if (a === b) return 0;
+  if (a === null || a === undefined) return -1;
+  if (b === null || b === undefined) return 1;
+  if (typeof a === 'number' && typeof b === 'number') return a - b;
+  if (typeof a === 'number') return -1;
+  if (typeof b === 'number') return 1;
+  return String(a) < String(b) ? -1 : 1;
+}
+
+/** One series' bucket bookkeeping in envelopeInOnePass. */
+interface SeriesEnvelope {
+  m: number;
+  v: unknown;
+  lo: number;
+  hi: number;
+  n: number;
+  /** Per bucket: x, y and flag of the lowest and the highest y (NaN: empty). */
+  low: Float64Array;
+  high: Float64Array;
+}
+
+/**
+ * The chart of a run table on SQLite, the same points as the SQL path: the axis range of
+ * each series first (from the figures the batch writer keeps when nothing narrows the run,
+ * else one grouped query), then a single pass over the rows that keeps every point while
+ * they are few and each bucket's lowest and highest y (ties: the first row, as SQLite's
+ * min and max do).
+ */
+async function envelopeInOnePass(
+  store: Store,
+  src: Source,
+  q: ChartQuery,
+  p: { base: string; baseParams: unknown[]; x: Expr; bySeries: boolean; max: number },
+): Promise<SeriesPoints> {
+  const d = store.dialect;
+  let ranges: { m: number; v: unknown; lo: number; hi: number }[];
+  if (!p.bySeries && !q.filters?.length && p.x.column !== undefined && src.layout!.columns[p.x.column].kind === 'number') {
+    const wanted = q.methods?.length ? new Set(methodIndices(src.run, q.methods)) : undefined;
+    const rows = await d.all<{ method_idx: number; minimum: number; maximum: number }>(
+      'select method_idx, minimum, maximum from result_stats where run_id = ? and column_idx = ?',
+      [src.run.id, p.x.column],
+    );
+    ranges = rows
+      .filter((r) => !wanted || wanted.has(Number(r.method_idx)))
+      .map((r) => ({ m: Number(r.method_idx), v: null, lo: Number(r.minimum), hi: Number(r.maximum) }));
+  } else {
+    ranges = (
+      await d.all<{ v: unknown; m: number; lo: number; hi: number }>(
+        `with src as (${p.base}) select min(v) as v, m, min(x) as lo, max(x) as hi from src group by s, m`,
+        p.baseParams,
+      )
+    ).map((r) => ({ m: Number(r.m), v: r.v, lo: Number(r.lo), hi: Number(r.hi) }));
+  }
+  if (ranges.length > MAX_SERIES) {
+    throw new InputError(`series by '${q.series}' gives ${ranges.length} series; at most ${MAX_SERIES} can be plotted`);
+  }
+  const buckets = Math.max(1, Math.floor(p.max / (2 * Math.max(1, ranges.length))));
+  const logX = ranges.every((r) => r.lo > 0);
+  // Series by method, then by the series input's value.
+  const byMethod = new Map<number, Map<unknown, SeriesEnvelope>>();
+  for (const r of ranges) {
+    if (!byMethod.has(r.m)) byMethod.set(r.m, new Map());
+    byMethod.get(r.m)!.set(r.v, { ...r, n: 0, low: new Float64Array(3 * buckets).fill(NaN), high: new Float64Array(3 * buckets).fill(NaN) });
+  }
+  const all: { e: SeriesEnvelope; x: number; y: number; f: number }[] = [];
+  let total = 0;
+  await d.visitRows!(`select count(filmsweep_visit(m, v, x, y, f)) from (${p.base})`, p.baseParams, (mv, vv, xv, yv, fv) => {
+    const e = byMethod.get(Number(mv))?.get(vv);
+    if (!e) return; // not in the ranges: cannot happen, as the ranges cover every row
+    const x = Number(xv);
+    const y = Number(yv);
+    const f = fv ? 1 : 0;
+    e.n++;
+    if (++total <= p.max) all.push({ e, x, y, f });
+    // The bucket, as the SQL path computes it: position along x (logarithmic when every x is positive).
+    const pos = e.hi === e.lo ? 0 : logX ? (Math.log(x) - Math.log(e.lo)) / (Math.log(e.hi) - Math.log(e.lo)) : (x - e.lo) / (e.hi - e.lo);
+    const k = 3 * Math.max(0, Math.min(buckets - 1, Math.floor(pos * buckets)));
+    if (!(e.low[k + 1] <= y)) {
+      e.low[k] = x;
+      e.low[k + 1] = y;
+      e.low[k + 2] = f;
+    }
+    if (!(e.high[k + 1] >= y)) {
+      e.high[k] = x;
+      e.high[k + 1] = y;
+      e.high[k + 2] = f;
+    }
+  });
+  const used = [...byMethod.values()].flatMap((v) => [...v.values()]).filter((e) => e.n > 0);
+  if (total <= p.max) {
+    const points = new Map<SeriesEnvelope, [number, number, 0 | 1][]>(used.map((e) => [e, []]));
+    all.sort((a, b) => a.x - b.x || a.y - b.y);
+    for (const a of all) points.get(a.e)!.push([a.x, a.y, a.f as 0 | 1]);
+    return { total, downsampled: false, series: used.map((e) => ({ m: e.m, v: e.v, points: points.get(e)! })) };
+  }
+  return {
+    total,
+    downsampled: true,
+    series: used.map((e) => {
+      const points: [number, number, 0 | 1][] = [];
+      for (let k = 0; k < 3 * buckets; k += 3) {
+        if (Number.isNaN(e.low[k + 1])) continue;
+        points.push([e.low[k], e.low[k + 1], e.low[k + 2] as 0 | 1]);
+        if (e.high[k] !== e.low[k] || e.high[k + 1] !== e.low[k + 1]) points.push([e.high[k], e.high[k + 1], e.high[k + 2] as 0 | 1]);
+      }
+      points.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
+      return { m: e.m, v: e.v, points };
+    }),
+  };
 }
 
 function push<T>(map: Map<string, T[]>, key: unknown, value: T) {
