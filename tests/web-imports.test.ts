@@ -72,6 +72,22 @@ describe('web/src imports', () => {
     expect(forbiddenImports(repo, files)).toEqual([]);
   });
 
+  it("takes the run queries' shapes from their one definition (shared/export/run-data.ts) instead of declaring them again", () => {
+    const shapes = ['MethodSummary', 'RunColumns', 'ResultsPage', 'ResultPageRow', 'ResultRowDto', 'ChartSeries', 'ChartData', 'CompareRow', 'Comparison', 'CompareResponse'];
+    const declared: string[] = [];
+    for (const file of sourcesUnder(path.join(repo, 'web', 'src'))) {
+      const code = readFileSync(file, 'utf8');
+      // A declaration of its own: an interface with a body, or a type spelled out as an object.
+      for (const m of code.matchAll(/\b(?:interface\s+(\w+)(?:<[^>]*>)?\s*\{|type\s+(\w+)\s*=\s*\{)/g)) {
+        const name = m[1] ?? m[2];
+        if (shapes.includes(name)) declared.push(`${path.relative(repo, file)}: ${name}`);
+      }
+    }
+    // ChartData may extend the shared one with the API's measured overlay.
+    expect(declared.filter((d) => !d.endsWith(': ChartData'))).toEqual([]);
+    expect(readFileSync(path.join(repo, 'web', 'src', 'api', 'types.ts'), 'utf8')).toContain("from '../../../shared/export/run-data.js'");
+  });
+
   it('the scanner finds a forbidden import two files away', () => {
     const root = mkdtempSync(path.join(tmpdir(), 'fs-web-guard-'));
     try {

@@ -7,27 +7,15 @@ import type { MethodVersion } from './runs.js';
 import type { RunStatus } from './schema.js';
 import type { Store } from './store.js';
 import type { RunInfo } from '../export/run-info.js';
+import type { MethodSummary } from '../export/run-data.js';
 
-/** A run as exports and the API show it (one definition, shared with the web app). */
-export type { RunInfo };
+/** A run as exports and the API show it, and its per-method summary (one definition each, shared with the web app). */
+export type { RunInfo, MethodSummary };
 
 /** What `show` adds to RunInfo: the process that ran it and why it failed. */
 export interface RunDetails extends RunInfo {
   pid: number | null;
   error: string | null;
-}
-
-export interface MethodSummary {
-  method: string;
-  version: number;
-  /** Points with a result of this method. */
-  points: number;
-  /** Of those, points whose result carries at least one flag. */
-  flagged_points: number;
-  /** `Nu` when the method gives a mean Nusselt number, else `Nu_x`, else null. */
-  nu_name: 'Nu' | 'Nu_x' | null;
-  nu_min: number | null;
-  nu_max: number | null;
 }
 
 function runQuery(store: Store) {

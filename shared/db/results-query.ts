@@ -6,6 +6,7 @@
 // (legacy-results.ts). Both give the same rows in the same order. Names reach SQL only
 // after they matched NAME_PATTERN and a column of the run; values always travel as
 // parameters.
+import type { ChartData, ChartSeries, CompareRow, Comparison, ResultPageRow, ResultsPage, RunColumns } from '../export/run-data.js';
 import { getMethod } from '../physics/catalogue.js';
 import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import { convertInBackground, readingRun } from './legacy-results.js';
@@ -13,6 +14,8 @@ import { getRun, type RunInfo } from './queries.js';
 import { decodeValue, type RunLayout } from './result-layout.js';
 import { eachStoredResult, flaggedSql, hasRunTable, loadLayout, methodSql, runTableName, valueColumn } from './result-table.js';
 import type { Store } from './store.js';
+
+export type { ChartData, ChartSeries, CompareRow, Comparison, ResultPageRow, ResultsPage, RunColumns };
 
 export const MAX_PAGE_SIZE = 500;
 export const MAX_CHART_POINTS = 20_000;
@@ -22,11 +25,6 @@ const COLUMN_SAMPLE = 20_000;
 
 /** Names the dashboard may filter, sort and plot by; nothing else reaches SQL. */
 export const NAME_PATTERN = /^[A-Za-z_][A-Za-z0-9_]*$/;
-
-export interface RunColumns {
-  inputs: string[];
-  outputs: string[];
-}
 
 export interface RangeFilter {
   name: string;
@@ -43,23 +41,6 @@ export interface ResultsQuery {
   methods?: string[];
   flagged?: 'any' | 'yes' | 'no';
   filters?: RangeFilter[];
-}
-
-export interface ResultPageRow {
-  /** The result's number within its run (point × methods + method + 1); older runs: their row id. */
-  id: number;
-  point: number;
-  method: string;
-  inputs: Inputs;
-  outputs: Outputs;
-  flags: string[];
-}
-
-export interface ResultsPage {
-  total: number;
-  page: number;
-  pageSize: number;
-  rows: ResultPageRow[];
 }
 
 /** How SQL reaches a run's values: its run table, or the JSON columns of points/results. */
@@ -253,24 +234,6 @@ export interface ChartQuery {
   filters?: RangeFilter[];
   /** Upper bound on the points returned over all series (default 2000). */
   max?: number;
-}
-
-export interface ChartSeries {
-  name: string;
-  method: string;
-  /** [x, y, flagged 0|1], sorted by x. */
-  points: [number, number, 0 | 1][];
-}
-
-export interface ChartData {
-  x: string;
-  y: string;
-  /** Results with both x and y, before downsampling. */
-  total: number;
-  downsampled: boolean;
-  series: ChartSeries[];
-  /** Stated uncertainty of each method, as a fraction. */
-  uncertainty: Record<string, number>;
 }
 
 /**
@@ -499,28 +462,6 @@ export interface CompareQuery {
   pageSize?: number;
   /** `yes`: only pairs whose value differs. */
   changed?: 'yes' | 'any';
-}
-
-export interface CompareRow {
-  method: string;
-  inputs: Inputs;
-  a: number | null;
-  b: number | null;
-  /** (b − a)/|a|; null when either is missing or a is 0. */
-  rel_diff: number | null;
-}
-
-export interface Comparison {
-  a: RunInfo;
-  b: RunInfo;
-  output: string;
-  /** Pairs shown by `changed` (before paging). */
-  total: number;
-  /** Pairs whose value differs. */
-  changed: number;
-  only_a: number;
-  only_b: number;
-  rows: CompareRow[];
 }
 
 /** Values differing by less than this (relative) count as unchanged: the last bits of a double. */

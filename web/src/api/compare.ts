@@ -1,19 +1,8 @@
 // Comparison of two runs: GET /api/compare.
 import { keepPreviousData, useQuery } from '@tanstack/react-query';
 import { api, qs } from './client.js';
-import type { CompareRow, RunInfo } from './types.js';
-export type { CompareRow } from './types.js';
-
-export interface CompareResponse {
-  a: RunInfo;
-  b: RunInfo;
-  output: string;
-  total: number;
-  changed: number;
-  only_a: number;
-  only_b: number;
-  rows: CompareRow[];
-}
+import type { CompareResponse } from './types.js';
+export type { CompareResponse, CompareRow } from './types.js';
 
 export interface CompareQuery {
   a: number;

@@ -1,7 +1,7 @@
 // Runs, their results, charts and exports: /api/runs…
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, qs } from './client.js';
-import type { ChartData, MethodSummary, ResultsPage, RunInfo, RunStatus } from './types.js';
+import type { ChartData, MethodSummary, ResultsPage, RunColumns, RunInfo, RunStatus } from './types.js';
 export type { ChartData, ChartSeries, ResultRowDto, ResultsPage } from './types.js';
 import { chartSearch, resultsSearch, type ChartQuery, type ResultQuery } from '../lib/result-query.js';
 
@@ -9,7 +9,7 @@ export interface RunResponse {
   run: RunInfo;
   summary: MethodSummary[];
   error: string | null;
-  columns: { inputs: string[]; outputs: string[] };
+  columns: RunColumns;
 }
 
 export const EXPORT_FORMATS = [

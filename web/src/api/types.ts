@@ -20,60 +20,22 @@ export interface RunInfo extends StoreRunInfo {
   started_by: string | null;
 }
 
-export interface MethodSummary {
-  method: string;
-  version: number;
-  points: number;
-  flagged_points: number;
-  nu_name: 'Nu' | 'Nu_x' | null;
-  nu_min: number | null;
-  nu_max: number | null;
-}
+// A study file's problem at its line and column (shared/study/errors.ts).
+export type { Diagnostic } from '../../../shared/study/errors.js';
 
-export interface Diagnostic {
-  file: string;
-  line: number;
-  column: number;
-  message: string;
-}
+// The run queries' shapes: the one definition in shared/export/run-data.ts, which
+// shared/db returns and the API sends.
+import type { ChartData as StoreChartData, Comparison, ResultPageRow } from '../../../shared/export/run-data.js';
+export type { ChartSeries, CompareRow, MethodSummary, ResultsPage, RunColumns } from '../../../shared/export/run-data.js';
 
-export interface ResultRowDto {
-  id: number;
-  point: number;
-  method: string;
-  inputs: Record<string, number | string | boolean>;
-  outputs: Record<string, number>;
-  flags: string[];
-}
+/** A row of a results page. */
+export type ResultRowDto = ResultPageRow;
 
-export interface ResultsPage {
-  total: number;
-  page: number;
-  pageSize: number;
-  rows: ResultRowDto[];
-}
-
-export interface ChartSeries {
-  name: string;
-  method: string;
-  points: [number, number, 0 | 1][];
-}
-
-export interface ChartData {
-  x: string;
-  y: string;
-  total: number;
-  downsampled: boolean;
-  series: ChartSeries[];
-  uncertainty: Record<string, number>;
+/** Chart data, plus measured data when the request names a measurement (server/overlay.ts). */
+export interface ChartData extends StoreChartData {
   measured?: { name: string; points: [number, number][]; mad: Record<string, number> };
 }
 
-export interface CompareRow {
-  method: string;
-  inputs: Record<string, number | string | boolean>;
-  a: number | null;
-  b: number | null;
-  rel_diff: number | null;
-}
+/** The comparison of two runs, each with what the API adds to a run. */
+export type CompareResponse = Comparison<RunInfo>;
 
