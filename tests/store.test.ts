@@ -22,6 +22,8 @@ import {
   resolveDbPath,
   resolveRunRef,
   ResultBatchEncoder,
+  chartData,
+  queryResults,
   type EncodedBatch,
   type NewRunSpec,
   type Store,
@@ -338,6 +340,16 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
       expect(Object.is(rows[6].inputs.Pr, 0)).toBe(true);
       expect(rows[0].outputs.tiny).toBe(5e-324);
       expect(await getRun(store, id)).toMatchObject({ points_done: 6, results_count: 12, flagged_count: 2 });
+
+      // The dashboard's queries: filters and chart axes take numbers (Re is text in later
+      // points: those count as missing), a sort may take text.
+      const filtered = await queryResults(store, id, { filters: [{ name: 'Re', min: 2e5 }], sort: 'Re' });
+      expect(filtered.rows.map((r) => [r.point, r.inputs.Re])).toEqual([[1, 2e5], [1, 2e5], [2, 3e5], [2, 3e5]]);
+      const byText = await queryResults(store, id, { sort: 'arrangement', order: 'desc', pageSize: 2 });
+      expect(byText.rows.map((r) => r.inputs.arrangement)).toEqual(['staggered', 'staggered']);
+      const chart = await chartData(store, id, { x: 'Re', y: 'Nu' });
+      expect(chart.total).toBe(3);
+      expect(chart.series.map((x) => x.points.map((p) => p[0]))).toEqual([[1e5, 2e5, 3e5]]);
     });
 
     it('lets two connections add new names to one run at the same time without losing any', async () => {

@@ -95,12 +95,18 @@ export async function getRunColumns(store: Store, runId: number): Promise<RunCol
   return readingRun(store, runId, async () => (await openSource(store, runId)).columns);
 }
 
-function valueExpr(store: Store, src: Source, name: string): Expr {
+/**
+ * SQL of a name's value. `numbers`: for filters and chart axes, which need numbers (a run
+ * table's text or switch values of the name count as missing); otherwise (sorting, series
+ * labels) a text column serves too.
+ */
+function valueExpr(store: Store, src: Source, name: string, numbers = true): Expr {
   if (!NAME_PATTERN.test(name)) throw new InputError(`'${name}' is not a column name`);
   // An output wins over an input of the same name: it is what the method computed.
   if (src.layout) {
-    const column = src.layout.anyColumn(name);
+    const column = numbers ? src.layout.numberColumn(name) : src.layout.anyColumn(name);
     if (column !== undefined) return { sql: `c.${valueColumn(column)}`, params: [], column };
+    if (src.layout.anyColumn(name) !== undefined) return { sql: 'null', params: [] };
   } else if (src.columns.outputs.includes(name)) {
     return { sql: store.dialect.jsonNumber('r.outputs', name), params: [] };
   } else if (src.columns.inputs.includes(name)) {
@@ -172,7 +178,7 @@ async function pageOf(store: Store, runId: number, q: ResultsQuery): Promise<Res
   const src = await openSource(store, runId);
   const cond = conditions(store, src, q);
   const sort = q.sort ?? 'point';
-  const sortExpr = sort === 'point' || sort === 'method' ? undefined : valueExpr(store, src, sort);
+  const sortExpr = sort === 'point' || sort === 'method' ? undefined : valueExpr(store, src, sort, false);
 
   // No index on a run table: a count and a sorted page are each one pass over the run's
   // rows of plain columns (tens of milliseconds for 1e6 results; see the api bench), and
@@ -253,7 +259,7 @@ async function chartOf(store: Store, runId: number, q: ChartQuery): Promise<Char
   const cond = conditions(store, src, { methods: q.methods, filters: q.filters });
   const x = valueExpr(store, src, q.x);
   const y = valueExpr(store, src, q.y);
-  const bySeries = q.series && q.series !== 'method' ? valueExpr(store, src, q.series) : undefined;
+  const bySeries = q.series && q.series !== 'method' ? valueExpr(store, src, q.series, false) : undefined;
   const m = col(src, 'method');
   const f = col(src, 'flagged');
   // s: the series as one text key (grouping); v: the value of the series input (its label).
