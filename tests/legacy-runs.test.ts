@@ -102,7 +102,7 @@ describe.each(STORE_KINDS)('runs stored before run tables, on %s', (kind) => {
 
   it('converts in steps, the event loop free between them: a query answers while the copy is half done', async () => {
     store = await openStore(database.location);
-    const big = await runStudy(store, prepare(12_000), { workers: 2 });
+    const big = await runStudy(store, prepare(6_000), { workers: 2 });
     const want = await snapshot(big.id);
     await storeAsBeforeRunTables(store, big.id);
 
@@ -130,7 +130,7 @@ describe.each(STORE_KINDS)('runs stored before run tables, on %s', (kind) => {
 
   it('a closed store stops its conversion after the current step; the next one finishes it', async () => {
     store = await openStore(database.location);
-    const big = await runStudy(store, prepare(12_000), { workers: 2 });
+    const big = await runStudy(store, prepare(6_000), { workers: 2 });
     const want = await snapshot(big.id);
     await storeAsBeforeRunTables(store, big.id);
     const converting = convertInBackground(store, big.id);

@@ -35,12 +35,14 @@ async function cliRun(ctx: BenchContext, file: string, db: string): Promise<{ se
   const rssFile = join(ctx.dir, 'peak-rss.txt');
   const t0 = performance.now();
   const child = spawn(process.execPath, ['--import', PEAK_RSS, BIN, 'run', file, '--db', db, '--workers', '2'], {
-    stdio: ['ignore', 'ignore', 'inherit'],
+    stdio: ['ignore', 'ignore', 'pipe'],
     env: { ...process.env, FILMSWEEP_PEAK_RSS_FILE: rssFile, NO_COLOR: '1' },
   });
+  let stderr = '';
+  child.stderr!.on('data', (d: Buffer) => (stderr += d.toString()));
   const [code] = await once(child, 'exit');
   const seconds = (performance.now() - t0) / 1000;
-  if (code !== 0) throw new Error(`filmsweep run ${file} exited with ${code}`);
+  if (code !== 0) throw new Error(`filmsweep run ${file} exited with ${code}:\n${stderr}`);
   return { seconds, peakRss: Number(readFileSync(rssFile, 'utf8')) };
 }
 
@@ -86,16 +88,29 @@ function rawInsertLoop(path: string, rows: Awaited<ReturnType<typeof narrowRows>
 
 const MiB = 1024 * 1024;
 
+/** Each side is timed this many times, alternately, and keeps its best (the machine is shared). */
+const TRIES = 2;
+
 export async function benchEndToEnd(ctx: BenchContext) {
   const file = ctx.study('bench-pipe-map', pipeMap('bench-pipe-map', 1000));
-  const db = join(ctx.dir, 'e2e.db');
-  const e2e = await cliRun(ctx, file, db);
-  const rows = await narrowRows(db);
-  const results = rows.point.length;
-  const rawSeconds = rawInsertLoop(join(ctx.dir, 'raw.db'), rows);
+  const e2eTimes: number[] = [];
+  const rawTimes: number[] = [];
+  let e2e = { seconds: Infinity, peakRss: 0 };
+  let results = 0;
+  for (let t = 0; t < TRIES; t++) {
+    const db = join(ctx.dir, `e2e-${t}.db`);
+    const run = await cliRun(ctx, file, db);
+    e2eTimes.push(run.seconds);
+    if (run.seconds < e2e.seconds) e2e = run;
+    const rows = await narrowRows(db);
+    results = rows.point.length;
+    rawTimes.push(rawInsertLoop(join(ctx.dir, `raw-${t}.db`), rows));
+  }
+  const rawSeconds = Math.min(...rawTimes);
   const ratio = rawSeconds / e2e.seconds;
-  console.log(`end to end, \`filmsweep run\` (new process, 2 workers, summary table): ${fmt(results)} results in ${fmt(e2e.seconds)} s = ${fmt(results / e2e.seconds)} results/s`);
-  console.log(`raw better-sqlite3 insert loop, same number of rows into (run, point, method, Re, Pr, Nu): ${fmt(rawSeconds)} s = ${fmt(results / rawSeconds)} results/s`);
+  const tries = (xs: number[]) => `best of ${xs.map((x) => fmt(x)).join(', ')} s`;
+  console.log(`end to end, \`filmsweep run\` (new process, 2 workers, summary table): ${fmt(results)} results in ${fmt(e2e.seconds)} s = ${fmt(results / e2e.seconds)} results/s (${tries(e2eTimes)})`);
+  console.log(`raw better-sqlite3 insert loop, same number of rows into (run, point, method, Re, Pr, Nu): ${fmt(rawSeconds)} s = ${fmt(results / rawSeconds)} results/s (${tries(rawTimes)})`);
   console.log(`  ratio end to end / raw insert: ${fmt(ratio)} (goal ≥ ${GOAL})`);
 
   // Memory: the same sweep at a quarter of the points; batches in flight bound it, not the points.
@@ -104,7 +119,7 @@ export async function benchEndToEnd(ctx: BenchContext) {
   console.log(`  ratio 1e6 / 2.5e5 results: ${fmt(e2e.peakRss / quarter.peakRss)} (bounded: no growth with the points beyond the batches in flight; results ×4)`);
 
   // Ready for the dashboard as it is: the first filtered, sorted page straight after the run.
-  const store = await openStore(db);
+  const store = await openStore(join(ctx.dir, 'e2e-0.db'));
   try {
     const run = (await getRun(store, (await resolveRunRef(store, 'latest')).id))!;
     const first = await timeAsync(() =>
