@@ -16,6 +16,15 @@ export function workerFile(): string {
 
 export type SweepPool = Piscina<BatchTask, ComputedBatch>;
 
+/**
+ * Young generation of each worker's heap. A worker's garbage is short-lived (each point's
+ * objects), so V8's default, which lets it grow to tens of MB over a long run, only makes
+ * the process's memory creep with the run's length. Measured here with 2 workers: peak RSS
+ * 196 → 228 MB from 1e6 to 4e6 correlation results by default, 179 → 182 MB with 8 MB;
+ * the same CPU time, also for a similarity sweep (3.4 s).
+ */
+const WORKER_YOUNG_GENERATION_MB = 8;
+
 export function createPool(workers: number, data: WorkerData): SweepPool {
   const pool = new Piscina<BatchTask, ComputedBatch>({
     filename: workerFile(),
@@ -23,6 +32,7 @@ export function createPool(workers: number, data: WorkerData): SweepPool {
     maxThreads: workers,
     idleTimeout: 60_000,
     workerData: data,
+    resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB },
   });
   // A batch cancelled by a second Ctrl-C may still finish in its worker; piscina then
   // emits 'error' ("Unexpected message from Worker") for a task it no longer tracks.
