@@ -5,8 +5,8 @@
 import { dirname, resolve } from 'node:path';
 import pLimit from 'p-limit';
 import { getMethod, methodsFor } from '../physics/catalogue.js';
-import { compileSolver, type SolvePlan } from '../physics/engine.js';
-import { InputError } from '../physics/types.js';
+import { compileSolver, type ResultRow, type SolvePlan } from '../physics/engine.js';
+import { InputError, type Inputs } from '../physics/types.js';
 import { countPoints, entryLength, loadStudyFile, parseStudy, pointAt, type LoadedStudy } from '../study/index.js';
 import {
   claimRunForResume,
@@ -25,7 +25,8 @@ import {
 import { BatchSizer } from './batches.js';
 import { defaultWorkers, gitCommit, hostName, processAlive } from './environment.js';
 import { createPool, type SweepPool } from './pool.js';
-import { PointCursor, pointsIn, toRanges } from './batch-task.js';
+import { PointCursor, pointsIn, toRanges, type ComputedBatch } from './batch-task.js';
+import { computeBatch } from './compute.js';
 
 /** A study checked and ready to run; nothing has touched the database yet. */
 export interface PreparedStudy {
@@ -276,19 +277,34 @@ async function computeAndWrite(
     await pool.destroy();
     throw e;
   }
-  const { sweep } = prepared.loaded.study;
+  const { inputs, sweep } = prepared.loaded.study;
   const sizer = new BatchSizer(count, workers, options.batchSize, innermostLength(sweep));
   const inFlight = options.inFlight ?? workers * 2;
   const limit = pLimit(inFlight);
   let failure: unknown;
   const stopped = () => options.stop?.aborted || options.cancel?.aborted || failure !== undefined;
 
+  const write = async (computed: ComputedBatch) => {
+    sizer.observe(computed.points.length, computed.computeMs);
+    onWritten(await writer.write(computed));
+  };
+  // Until the first worker has answered (starting one takes a tenth of a second or more),
+  // the main thread, idle otherwise, computes and writes batches itself, with the same code.
+  let workersStarted = false;
+  let solveHere: ((inputs: Inputs) => ResultRow[]) | undefined;
+  const methodIds = prepared.methods.map((m) => m.id);
   const runBatch = async (ranges: number[]) => {
     if (stopped()) return;
     const computed = await pool.run({ ranges }, { signal: options.cancel ?? null });
+    workersStarted = true;
     if (options.cancel?.aborted) return;
-    sizer.observe(computed.points.length, computed.computeMs);
-    onWritten(await writer.write(computed));
+    await write(computed);
+  };
+  const runHere = async (ranges: number[]) => {
+    solveHere ??= compileSolver(prepared.plan, { strict: false });
+    await write(computeBatch(solveHere, { inputs, sweep }, methodIds, ranges));
+    // Let the workers' answers (and signals) in before the next one.
+    await new Promise((r) => setImmediate(r));
   };
 
   // p-limit runs at most `inFlight` batches at once; a batch is cut only when a slot is
@@ -298,6 +314,12 @@ async function computeAndWrite(
     const cursor = new PointCursor(todo);
     while (!cursor.done && !stopped()) {
       if (running.size >= inFlight) {
+        if (!workersStarted) {
+          await runHere(cursor.next(sizer.next())).catch((e: unknown) => {
+            failure ??= e ?? new Error('a batch failed without an error');
+          });
+          continue;
+        }
         await Promise.race(running);
         continue;
       }
