@@ -2,13 +2,13 @@
 // per input and output name (shared/db/result-layout.ts, result-table.ts), instead of JSON
 // documents in the shared points/results tables; and the results caches of 0002 go.
 //
-// Why: measured with better-sqlite3 12 / SQLite 3.53 on this 2-core machine, 1e6 results
-// (2 methods × 5e5 points, Re, Pr, Nu, f), 1000 points per transaction, WAL,
-// synchronous=NORMAL, inserts only:
-//   narrow table (run, point, method, Re, Pr, Nu), the yardstick   0.63–1.2 s
-//   points + results as JSONB (0001), unique index                      3.9–4.9 s
-//   one row per result, typed columns, rowid = point × methods + method  1.0–1.6 s
-//   the same with the JSON text kept beside the columns                 3.6–4.1 s
+// Why: measured with better-sqlite3 12 / SQLite 3.53 on this 2-core machine, CPU time to
+// insert 1e6 results (2 methods × 5e5 points; Re, Pr, Nu, f), WAL, synchronous=NORMAL:
+//   narrow table (run, point, method, Re, Pr, Nu), one row per call: the yardstick   0.63 s
+//   points + results as JSONB (0001), one row per call, unique index                      3.06 s
+//   one row per result, JSON text beside typed columns, one row per call                 1.98 s
+//   one row per result, typed columns (and method, flag), one row per call               1.03 s
+//   typed columns only, 256 rows per INSERT (what the batch writer does)                0.51 s
 // and the JSONB rows then needed a second copy (the results cache, 2.4 s for 1e6 results)
 // before the dashboard could filter and sort them quickly. A row of the run table is what
 // the dashboard filters and sorts (no copy, no join to points), and it reads back exactly:
