@@ -90,7 +90,7 @@ function batchColumnOf(layout: RunLayout, mapping: LayoutMapping): Int32Array {
   return of;
 }
 
-/** The stored value of result r in a batch column: NaN (no number) becomes null. */
+/** The value of result r in a batch column for PostgreSQL, which would store NaN as NaN: NaN (no number) becomes null. */
 function cell(values: ResultBatch['values'][number], r: number): string | number | null {
   const v = values[r];
   return typeof v === 'number' && v !== v ? null : v;
