@@ -76,7 +76,7 @@ describe('filmsweep fluid', () => {
   });
 });
 
-describe('filmsweep methods: the engine's inputs and outputs per configuration', () => {
+describe('filmsweep methods: the inputs and outputs of the engine per configuration', () => {
   it('lists the inlet convention, the radiation inputs and the new outputs', () => {
     const data = JSON.parse(runCli(['methods', '--json']).stdout);
     const conf = (id: string) => data.configurations.find((c: { id: string }) => c.id === id);
@@ -166,5 +166,5 @@ describe('filmsweep solve', () => {
       expect(r.stderr, args.join(' ')).toMatch(pattern);
       expect(r.stderr).not.toMatch(/\n\s+at /);
     }
-  });
+  }, 180_000); // a dozen CLI starts
 });
