@@ -6,7 +6,7 @@ import { getMethod, methodsFor, requireConfiguration } from './catalogue.js';
 import type { Configuration, PropertyRule } from './configurations.js';
 import { hydraulicDiameter } from './correlations/duct.js';
 import { maxVelocityRatio } from './correlations/tube-bank.js';
-import { getFluid, makeConstantFluid, makeTableFluid } from './fluids/index.js';
+import { resolveFluidSpec, type FluidSpec } from './fluids/index.js';
 import { FluidRangeError, type Fluid, type FluidProperties } from './fluids/types.js';
 import { dimensionalNames } from './quantities.js';
 import { InputError, type Flag, type Inputs, type Method, type Outputs } from './types.js';
@@ -16,10 +16,7 @@ const G = 9.80665;
 /** Standard atmosphere, Pa. */
 const P_ATM = 101325;
 
-export type FluidSpec =
-  | string
-  | { constant: { rho: number; cp: number; mu: number; k: number; beta?: number } }
-  | { table: { T: number[]; rho: number[]; cp: number[]; mu: number[]; k: number[]; beta?: number[] } };
+export type { FluidSpec } from './fluids/index.js';
 
 /** What a point needs besides its inputs: the same for every point of a study. */
 export interface SolvePlan {
@@ -47,10 +44,7 @@ const propertyRuleOverrides: Record<string, PropertyRule> = {
 };
 
 export function resolveFluid(spec: FluidSpec): Fluid {
-  if (typeof spec === 'string') return getFluid(spec);
-  if ('constant' in spec) return makeConstantFluid(spec.constant);
-  if ('table' in spec) return makeTableFluid({ columns: spec.table });
-  throw new InputError('fluid: expected a catalogue name, {constant: {...}} or {table: {...}}');
+  return resolveFluidSpec(spec);
 }
 
 export function propertyRuleOf(method: Method, configuration: Configuration): PropertyRule {
