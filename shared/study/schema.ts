@@ -70,8 +70,9 @@ const tableFluid = strict({
 });
 
 // A mixture's parameter: a percentage ("40 %") or a fraction (0.4).
+const fractionError = 'expected a percentage such as "40 %" or a fraction such as 0.4';
 const fraction = z
-  .union([percent, finiteNumber], { error: 'expected a percentage such as "40 %" or a fraction such as 0.4' })
+  .union([z.string().regex(percentPattern, { error: fractionError }), z.number({ error: fractionError })], { error: fractionError })
   .describe('a percentage such as "40 %", or a fraction such as 0.4');
 
 const mixtureFluid = strict({
