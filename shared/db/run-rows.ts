@@ -1,6 +1,6 @@
 // A run's result rows in slices, for exports that stream: the same rows in the same order
 // as getRunRows (point order, then method order; only points that are stored), read
-// CHUNK rows at a time by keyset on the unique (run_id, point_idx, method_idx) index, so
+// RUN_ROWS_CHUNK rows at a time by keyset on the unique (run_id, point_idx, method_idx) index, so
 // memory stays at one slice whatever the run's size and each slice is one short query.
 // Between slices the caller's writer yields to the event loop (better-sqlite3 answers
 // synchronously; without a yield one export would hold every other request).
@@ -10,7 +10,7 @@ import type { Inputs, Outputs } from '../physics/types.js';
 import { jsonTextSql } from './dialect.js';
 import type { Store } from './store.js';
 
-export const RUN_ROWS_CHUNK = 2000;
+export const RUN_ROWS_CHUNK = 1000;
 
 export function runRowSource(store: Store, runId: number, chunk = RUN_ROWS_CHUNK): RowSource {
   return {
