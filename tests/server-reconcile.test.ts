@@ -173,7 +173,8 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
         };
         child.stdout.on('data', check);
         child.stderr.on('data', check);
-        child.on('exit', (code) => {
+        // 'close', not 'exit': the output may still be in the pipe when the process has exited.
+        child.on('close', (code) => {
           clearTimeout(timer);
           resolve({ out, code });
         });

@@ -164,7 +164,7 @@ export function runsRouter(ctx: AppContext): Router {
     if (row.pushed_from !== null) {
       throw new HttpError(409, `run ${id} was pushed from ${row.pushed_from}; resume it there with \`filmsweep resume\` and push it again`);
     }
-    const refusal = ctx.background.has(id) ? `run ${id} is already running on this server` : resumeRefusal(id, source, processAlive);
+    const refusal = resumeRefusal(id, source, processAlive) ?? (ctx.background.has(id) ? `run ${id} is already running on this server` : undefined);
     if (refusal) throw new HttpError(409, refusal);
     const user = req.auth!.user;
     try {
