@@ -146,8 +146,13 @@ export function runsRouter(ctx: AppContext): Router {
       res.attachment(`run-${id}.${format}`);
       await writeRunExport(run, runRowSource(ctx.store, id), format, res, makeUnitLookup(runMethodSpecs({ run })));
     } catch (e) {
+      if (!res.headersSent) {
+        // Nothing sent yet: an ordinary JSON error, not one labelled as the file.
+        res.removeHeader('Content-Type');
+        res.removeHeader('Content-Disposition');
+        throw e;
+      }
       // Once the file has started, the only way to say it failed is to cut it short.
-      if (!res.headersSent) throw e;
       if (!(e instanceof OutputClosedError)) ctx.options.log(e);
       res.destroy();
     } finally {

@@ -31,18 +31,26 @@ export function rowsOf(rows: readonly ResultRow[], chunk = MEMORY_CHUNK): RowSou
 
 /** The output went away (the client closed the connection): stop reading. */
 export class OutputClosedError extends Error {
-  constructor() {
-    super('the export was abandoned: its output closed');
+  constructor(message = 'the export was abandoned: its output closed') {
+    super(message);
     this.name = 'OutputClosedError';
   }
 }
 
-/** Waits until the output wants more (or fails when it closed meanwhile). */
-export function drained(out: Writable): Promise<void> {
+/**
+ * How long the output may refuse more data before the export gives up: a reader that
+ * stops reading must not hold an export (and its slot on the server) for ever.
+ */
+export const STALL_TIMEOUT_MS = 60_000;
+
+/** Waits until the output wants more (or fails when it closed meanwhile, or took nothing for STALL_TIMEOUT_MS). */
+export function drained(out: Writable, stallMs = STALL_TIMEOUT_MS): Promise<void> {
   if (out.destroyed || out.writableEnded) return Promise.reject(new OutputClosedError());
   if (!out.writableNeedDrain) return Promise.resolve();
   return new Promise((resolve, reject) => {
+    const timer = setTimeout(() => done(new OutputClosedError(`the export was abandoned: its reader took nothing for ${stallMs / 1000} s`)), stallMs);
     const done = (e?: Error) => {
+      clearTimeout(timer);
       out.off('drain', onDrain);
       out.off('close', onClose);
       out.off('error', done);
