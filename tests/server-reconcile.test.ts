@@ -7,7 +7,7 @@
 // SQLite, and PostgreSQL when FILMSWEEP_TEST_PG_URL is set (the worker needs
 // FILMSWEEP_TEST_REDIS_URL).
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
-import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -33,10 +33,19 @@ sweep:
 `;
 const TOTAL = 1200;
 
-/** A process id that has just ended (a child that exits at once). */
+/**
+ * A process id no process has: one above the kernel's pid_max. (The id of a child that
+ * has exited can be handed out again within seconds on a busy machine, threads included,
+ * and would then look alive.)
+ */
 function deadPid(): number {
-  const r = spawnSync(process.execPath, ['-e', '0']);
-  return r.pid!;
+  let max = 4_194_304; // Linux's ceiling on 64-bit
+  try {
+    max = Number(readFileSync('/proc/sys/kernel/pid_max', 'utf8').trim()) || max;
+  } catch {
+    // not Linux: the ceiling above is still beyond any process id there
+  }
+  return max + 1;
 }
 
 /** A run of STUDY stopped after its first batches, then made to look like its process was killed. */
