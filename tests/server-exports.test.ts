@@ -21,16 +21,21 @@ interface LatencyProbe {
   stop(): Promise<void>;
 }
 
-/** Asks GET /api/health over and over (one at a time) and records how long each answer took. */
+/**
+ * Asks GET /api/health over and over (one at a time, 20 ms apart) and records, for each
+ * answer, the time since the previous answer: a server that stops answering for a while
+ * shows as one long gap, whether the request was waiting or not yet sent.
+ */
 function probeLatency(url: string): LatencyProbe {
   const samples: number[] = [];
   let running = true;
   const loop = (async () => {
+    let last = performance.now();
     while (running) {
-      const t0 = performance.now();
-      const res = await fetch(`${url}/api/health`);
-      await res.text();
-      samples.push(performance.now() - t0);
+      await (await fetch(`${url}/api/health`)).text();
+      const now = performance.now();
+      samples.push(now - last);
+      last = now;
       await new Promise((r) => setTimeout(r, 20));
     }
   })();
@@ -47,15 +52,16 @@ const percentile = (xs: number[], p: number) => [...xs].sort((a, b) => a - b)[Ma
 
 /**
  * What "keeps answering" means here, on a 2-core machine shared with other work (the OS
- * alone can hold a process for a few hundred ms): health requests keep being answered all
- * through the export (before streaming, none was answered until the whole file was built:
- * a 240,000-result CSV blocked the server for seconds, an XLSX for minutes), the typical
- * one within 100 ms, 95 % within 500 ms. The maximum is printed with the other figures.
+ * alone can hold a process for a few hundred ms): health answers keep coming all through
+ * the export (before streaming, none came until the whole file was built: a 240,000-result
+ * CSV held the server for seconds, an XLSX for a minute), the typical gap between two
+ * answers (20 ms of it the probe's own pause) under 150 ms, 95 % under 750 ms. The longest
+ * gap is printed with the other figures.
  */
 function expectResponsive(samples: number[], seconds: number) {
   expect(samples.length).toBeGreaterThan(Math.max(5, seconds * 3));
-  expect(percentile(samples, 50)).toBeLessThan(100);
-  expect(percentile(samples, 95)).toBeLessThan(500);
+  expect(percentile(samples, 50)).toBeLessThan(150);
+  expect(percentile(samples, 95)).toBeLessThan(750);
 }
 
 describe.each(STORE_KINDS)('on %s', (kind) => {
@@ -76,7 +82,7 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
   });
 
   describe('item 3: exports stream and the server keeps answering', () => {
-    it('streams a 240,000-result CSV export while GET /api/health keeps answering (median < 100 ms, 95 % < 500 ms)', async () => {
+    it('streams a 240,000-result CSV export while GET /api/health keeps answering (gaps: median < 150 ms, 95 % < 750 ms)', async () => {
       const probe = probeLatency(s.url);
       const t0 = performance.now();
       const res = await viewer.request('GET', `/api/runs/${big}/export?format=csv`);
@@ -96,11 +102,11 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
       expect(lines).toBe(RESULTS + 1);
       const max = Math.max(...probe.samples);
       console.log(`[${kind}] CSV export of ${RESULTS} results: ${(bytes / 1e6).toFixed(1)} MB in ${seconds.toFixed(1)} s; ` +
-        `health during it: ${probe.samples.length} requests, median ${percentile(probe.samples, 50).toFixed(0)} ms, 95 % ${percentile(probe.samples, 95).toFixed(0)} ms, max ${max.toFixed(0)} ms`);
+        `health during it: ${probe.samples.length} answers, gap between answers median ${percentile(probe.samples, 50).toFixed(0)} ms, 95 % ${percentile(probe.samples, 95).toFixed(0)} ms, max ${max.toFixed(0)} ms`);
       expectResponsive(probe.samples, seconds);
     }, 180_000);
 
-    it('streams a 240,000-result XLSX export (exceljs streaming writer) while GET /api/health keeps answering (median < 100 ms, 95 % < 500 ms)', async () => {
+    it('streams a 240,000-result XLSX export (exceljs streaming writer) while GET /api/health keeps answering (gaps: median < 150 ms, 95 % < 750 ms)', async () => {
       const probe = probeLatency(s.url);
       const t0 = performance.now();
       const res = await viewer.request('GET', `/api/runs/${big}/export?format=xlsx`);
@@ -110,7 +116,7 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
       await probe.stop();
       const max = Math.max(...probe.samples);
       console.log(`[${kind}] XLSX export of ${RESULTS} results: ${(bytes.length / 1e6).toFixed(1)} MB in ${seconds.toFixed(1)} s; ` +
-        `health during it: ${probe.samples.length} requests, median ${percentile(probe.samples, 50).toFixed(0)} ms, 95 % ${percentile(probe.samples, 95).toFixed(0)} ms, max ${max.toFixed(0)} ms`);
+        `health during it: ${probe.samples.length} answers, gap between answers median ${percentile(probe.samples, 50).toFixed(0)} ms, 95 % ${percentile(probe.samples, 95).toFixed(0)} ms, max ${max.toFixed(0)} ms`);
       expectResponsive(probe.samples, seconds);
       // Read back with exceljs's streaming reader: every row is there, numbers as numbers.
       const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(bytes), { sharedStrings: 'cache', worksheets: 'emit' });
