@@ -21,6 +21,15 @@ export const dimensionalQuantities: QuantitySpec[] = [
   { name: 'fluid_temperature', unit: 'K', description: 'free-stream (external, free) or bulk (internal) temperature' },
   { name: 'heat_flux', unit: 'W/m^2', description: 'uniform wall heat flux q″ (surface temperature then follows)' },
   { name: 'pressure', unit: 'Pa', description: 'absolute pressure (air: density scales with it; liquids: ignored)' },
+  { name: 'inner_diameter', unit: 'm', description: 'annulus: outer diameter of the inner tube, D_i' },
+  { name: 'outer_diameter', unit: 'm', description: 'annulus: inner diameter of the outer tube, D_o' },
+  { name: 'gap', unit: 'm', description: 'parallel plates, vertical channel, heat-sink fins: spacing S; enclosure: distance between hot and cold walls' },
+  { name: 'fin_count', unit: '1', description: 'heat sink: number of fins N' },
+  { name: 'fin_height', unit: 'm', description: 'heat sink: fin projection from the base' },
+  { name: 'fin_thickness', unit: 'm', description: 'heat sink: fin thickness t' },
+  { name: 'fin_conductivity', unit: 'W/(m K)', description: 'heat sink: thermal conductivity of the fin material' },
+  { name: 'radius', unit: 'm', description: 'impinging jet: radius of the disc the average covers (single nozzle)' },
+  { name: 'pitch', unit: 'm', description: 'impinging jet: nozzle pitch (arrays)' },
 ];
 
 export const dimensionalNames = new Set(dimensionalQuantities.map((q) => q.name));
