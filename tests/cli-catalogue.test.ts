@@ -1,6 +1,8 @@
 // `filmsweep methods --json` lists the everyday-catalogue methods of issue 13 under their
 // contracted configuration and method ids, each with an equation, ranges and a source.
+import katex from 'katex';
 import { describe, expect, it } from 'vitest';
+import { methods } from '../shared/physics/catalogue.js';
 import { runCli } from './helpers/cli.js';
 
 const contracted = [
@@ -53,5 +55,13 @@ describe('filmsweep methods: the everyday catalogue', () => {
     expect(r.stdout).toContain('enclosure — Rectangular enclosure, free convection');
     expect(r.stdout).toMatch(/hollands .*\n\s+inputs:\s+Ra height_over_gap \[tilt\]/);
     expect(r.stdout).toContain('0 ≤ tilt ≤ 60');
+  });
+});
+
+describe('catalogue equations', () => {
+  it('every equation renders in KaTeX (the dashboard renderer) without an error', () => {
+    for (const m of methods) {
+      expect(() => katex.renderToString(m.equation, { throwOnError: true, strict: 'error' }), `${m.configuration}/${m.id}`).not.toThrow();
+    }
   });
 });
