@@ -5,7 +5,8 @@
 import { LineCounter, isAlias, parseDocument, visit, type Document } from 'yaml';
 import type { z } from 'zod';
 import { getMethod, methodsFor, requireConfiguration } from '../physics/catalogue.js';
-import { commonDimensionalInputs } from '../physics/configurations.js';
+import { dimensionalInputsOf } from '../physics/configurations.js';
+import { conflictMessage, inputConflicts } from '../physics/point-inputs.js';
 import { derivableInputs, missingInputs, resolveFluid, unknownInputs, type FluidSpec, type SolvePlan } from '../physics/engine.js';
 import { dimensionalNames } from '../physics/quantities.js';
 import { InputError, type InputSpec, type InputValue, type Inputs, type Method } from '../physics/types.js';
@@ -108,7 +109,7 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     try {
       const c = requireConfiguration(configuration);
       // characteristic_length overrides the length of any configuration (engine.ts).
-      configurationInputs = new Set([...c.dimensionalInputs, ...commonDimensionalInputs, 'characteristic_length']);
+      configurationInputs = new Set(dimensionalInputsOf(c));
       const resolved = resolveMethods(configuration, listedMethods, raw.methods !== undefined, report);
       methods = resolved.methods;
       if (!resolved.ok) complete = false;
@@ -180,6 +181,11 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
         complete = false;
       }
     }
+  }
+  // One thing said once: velocity with Re, heat_flux with surface_temperature, Pr with a fluid …
+  for (const c of inputConflicts(names, raw.fluid !== undefined)) {
+    report(pathOf(c.second), conflictMessage(c), true);
+    complete = false;
   }
   const dimensional = names.filter(isDimensional);
   if (dimensional.length && raw.fluid === undefined) {
