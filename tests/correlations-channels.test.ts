@@ -211,19 +211,31 @@ describe('annulus: turbulent-annulus', () => {
     }
   });
 
-  it('with L_over_D includes the entry factor 1 + (D_h/L)^⅔ and the loss coefficient', () => {
+  it('short_tube_correction applies the entry factor 1 + (D_h/L)^⅔; a short annulus without it is flagged entry-region', () => {
     const base = { Re: 3e4, Pr: 4, diameter_ratio: 0.4 };
     const developed = run(annulusMethods, 'turbulent-annulus', base).outputs;
-    const short = run(annulusMethods, 'turbulent-annulus', { ...base, L_over_D: 8 }).outputs;
-    expect(short.Nu / developed.Nu).toBeCloseTo(1 + 8 ** (-2 / 3), 12);
-    expect(short.pressure_drop_coefficient).toBeCloseTo(developed.f * 8, 12);
+    const short = run(annulusMethods, 'turbulent-annulus', { ...base, L_over_D: 8, short_tube_correction: true });
+    expect(short.outputs.Nu / developed.Nu).toBeCloseTo(1 + 8 ** (-2 / 3), 12);
+    expect(short.outputs.pressure_drop_coefficient).toBeCloseTo(developed.f * 8, 12);
+    expect(short.flags).toEqual([]);
+    const uncorrected = run(annulusMethods, 'turbulent-annulus', { ...base, L_over_D: 8 });
+    expect(uncorrected.outputs.Nu).toBe(developed.Nu);
+    expect(uncorrected.flags).toEqual(['entry-region']);
+    expect(run(annulusMethods, 'turbulent-annulus', { ...base, L_over_D: 40 }).flags).toEqual([]);
     expect(developed.pressure_drop_coefficient).toBeUndefined();
+    expect(() => run(annulusMethods, 'turbulent-annulus', { ...base, short_tube_correction: true })).toThrow(InputError);
+  });
+
+  it('the laminar methods flag the entry region where the tube is shorter than 0.05·Re·Pr·D_h', () => {
+    // Incropera eqs. 8.3 and 8.23 (the engine's entry-length rule): Re = 1000, Pr = 5 → 250 D_h.
+    expect(run(annulusMethods, 'laminar-annulus', { Re: 1000, diameter_ratio: 0.5, L_over_D: 200, Pr: 5 }).flags).toEqual(['entry-region']);
+    expect(run(annulusMethods, 'laminar-annulus', { Re: 1000, diameter_ratio: 0.5, L_over_D: 300, Pr: 5 }).flags).toEqual([]);
+    expect(run(parallelPlatesMethods, 'laminar-parallel-plates', { Re: 1000, L_over_D: 200, Pr: 5 }).flags).toEqual(['entry-region']);
   });
 
   it('flags points outside its ranges and refuses Re where the friction law has no meaning', () => {
     expect(run(annulusMethods, 'turbulent-annulus', { Re: 5000, Pr: 0.7, diameter_ratio: 0.5 }).flags).toEqual(['out-of-range:Re']);
     expect(run(annulusMethods, 'turbulent-annulus', { Re: 5e4, Pr: 0.2, diameter_ratio: 0.5 }).flags).toEqual(['out-of-range:Pr']);
-    expect(run(annulusMethods, 'turbulent-annulus', { Re: 5e4, Pr: 2, diameter_ratio: 0.5, L_over_D: 0.5 }).flags).toEqual(['out-of-range:L_over_D']);
     expect(() => run(annulusMethods, 'turbulent-annulus', { Re: 5, Pr: 1, diameter_ratio: 0.5 })).toThrow(InputError);
   });
 });
@@ -299,11 +311,13 @@ describe('pipe: liquid metals', () => {
     expect(r.pressure_drop_coefficient).toBeCloseTo(petukhovFrictionFactor(1e5) * 50, 12);
   });
 
-  it('flags low Pe, ordinary fluids and short tubes', () => {
+  it('flags low Pe, ordinary fluids and short tubes (entry-region), and states its wall condition', () => {
+    expect(liquidMetalPipeMethods.map((m) => m.wallConditions)).toEqual([['temperature'], ['flux']]);
     expect(run(liquidMetalPipeMethods, 'seban-shimazaki', { Re: 5000, Pr: 0.01 }).flags).toEqual(['out-of-range:Pe']);
     expect(run(liquidMetalPipeMethods, 'seban-shimazaki', { Re: 5000, Pr: 0.7 }).flags).toEqual(['out-of-range:Pr']);
     expect(run(liquidMetalPipeMethods, 'skupinski', { Re: 2e6, Pr: 0.004 }).flags).toEqual(['out-of-range:Re']);
     expect(run(liquidMetalPipeMethods, 'skupinski', { Re: 1e5, Pr: 0.2 }).flags).toEqual(['out-of-range:Pe', 'out-of-range:Pr']);
-    expect(run(liquidMetalPipeMethods, 'skupinski', { Re: 1e5, Pr: 0.01, L_over_D: 5 }).flags).toEqual(['out-of-range:L_over_D']);
+    expect(run(liquidMetalPipeMethods, 'skupinski', { Re: 1e5, Pr: 0.01, L_over_D: 5 }).flags).toEqual(['entry-region']);
+    expect(run(liquidMetalPipeMethods, 'seban-shimazaki', { Re: 1e5, Pr: 0.01, L_over_D: 30 }).flags).toEqual([]);
   });
 });

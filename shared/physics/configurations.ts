@@ -21,6 +21,8 @@ export interface Configuration {
   dimensionalInputs: string[];
   /** What the dimensional inputs mean here, where it differs from the obvious (shown by `methods`). */
   conventions?: string;
+  /** Outputs the configuration's own output extension adds (extensions.ts), shown with the engine's. */
+  extensionOutputs?: string[];
 }
 
 export const configurations: Configuration[] = [
@@ -145,6 +147,8 @@ export const configurations: Configuration[] = [
     lengthNote: 'hydraulic diameter D_h = D_o − D_i',
     propertyRule: 'bulk',
     dimensionalInputs: ['velocity', 'flow_rate', 'inner_diameter', 'outer_diameter', 'length'],
+    conventions:
+      'fluid_temperature is the INLET bulk temperature; the outlet follows from the energy balance over the heated area (surface_temperature: uniform wall temperature; heat_flux: uniform flux), bulk properties at (T_in + T_out)/2. The heated area is the heated wall only: π·D_i·length (heated_wall inner, the default) or π·D_o·length (outer); surface_temperature and heat_flux are that wall\'s. diameter_ratio = D_i/D_o and L_over_D = length/D_h follow from the sizes.',
   },
   {
     id: 'parallel-plates',
@@ -154,6 +158,8 @@ export const configurations: Configuration[] = [
     lengthNote: 'hydraulic diameter D_h = 2·gap',
     propertyRule: 'bulk',
     dimensionalInputs: ['velocity', 'flow_rate', 'gap', 'width', 'length'],
+    conventions:
+      'fluid_temperature is the INLET bulk temperature; the outlet follows from the energy balance over the heated area (surface_temperature: uniform wall temperature; heat_flux: uniform flux), bulk properties at (T_in + T_out)/2. width is the plates\' extent across the flow (needed with length): the flow area is gap·width, the heated area 2·width·length (heated_walls both) or width·length (one).',
   },
   {
     id: 'vertical-channel',
@@ -163,6 +169,9 @@ export const configurations: Configuration[] = [
     lengthNote: 'plate spacing S (gap); the height L enters through S/L',
     propertyRule: 'film',
     dimensionalInputs: ['gap', 'height', 'width'],
+    conventions:
+      'surface_temperature is the plates\' temperature, fluid_temperature the ambient air below the channel; Ra on the gap. width (optional) gives heat_rate over 2·height·width (heated_walls both) or height·width (one). optimum_gap = S_opt in metres. No radiation (the plates face each other).',
+    extensionOutputs: ['optimum_gap'],
   },
   {
     id: 'plate-fin-heat-sink',
@@ -173,6 +182,9 @@ export const configurations: Configuration[] = [
     lengthNote: 'fin spacing S (gap); the fin length L along the flow enters through S/L',
     propertyRule: 'film',
     dimensionalInputs: ['fin_count', 'fin_height', 'fin_thickness', 'gap', 'length', 'fin_conductivity', 'velocity'],
+    conventions:
+      'surface_temperature is the BASE temperature, fluid_temperature the ambient air. Free convection (no velocity): vertical fins, length the fin length upward, Ra on the gap. Forced (velocity = approach velocity along the fins): Re on the gap with the channel velocity V(1 + t/S). Every wetted surface gets the channel h; heat_rate = η_o·h·A_t·(T_b − T_air) with the fin efficiency of straight fins (L_c = fin_height + t/2). emissivity: radiation from the envelope (fin-tip plane W·L and the two outer fin faces) at the base temperature. thermal_resistance = (T_b − T_air)/heat_rate_total. heat_flux and heat_rate are not accepted (give the base temperature).',
+    extensionOutputs: ['fin_efficiency', 'fin_parameter', 'overall_efficiency', 'base_width', 'radiating_area', 'thermal_resistance', 'optimum_gap', 'channel_velocity'],
   },
   {
     id: 'enclosure',
@@ -183,6 +195,8 @@ export const configurations: Configuration[] = [
     lengthNote: 'gap L between the hot and cold walls',
     propertyRule: 'film',
     dimensionalInputs: ['gap', 'height', 'width'],
+    conventions:
+      'surface_temperature is the HOT wall, fluid_temperature the COLD wall; properties at their mean. gap is the distance between them, height their extent (H/L), width the other extent: heat_rate crosses height·width. The tilt (degrees from horizontal) is a method input. emissivity is the effective emissivity of the pair of walls, 1/(1/ε_1 + 1/ε_2 − 1), with the cold wall as the surroundings by default.',
   },
   {
     id: 'inclined-plate',
@@ -192,6 +206,8 @@ export const configurations: Configuration[] = [
     lengthNote: 'plate length L along the slope',
     propertyRule: 'film',
     dimensionalInputs: ['length', 'width'],
+    conventions:
+      'length is the plate length along the slope (Ra on it, full g), width across; width_over_length follows (needed for hot_side up). The tilt (degrees from vertical) and hot_side are method inputs.',
   },
   {
     id: 'impinging-jet',
@@ -201,6 +217,8 @@ export const configurations: Configuration[] = [
     lengthNote: 'nozzle diameter D; Re on the nozzle exit velocity',
     propertyRule: 'film',
     dimensionalInputs: ['velocity', 'diameter', 'height', 'radius', 'pitch', 'length', 'width'],
+    conventions:
+      'velocity is the nozzle exit velocity, diameter the nozzle diameter, height the nozzle-to-surface distance; radius (single nozzle) is the disc the average covers and gives heat_rate over π·radius²; pitch (arrays) the nozzle spacing, with heat_rate over length·width.',
   },
 ];
 
@@ -237,7 +255,7 @@ export function engineOutputsOf(c: Configuration): string[] {
   }
   const radiation = radiates(c) ? ['h_radiation', 'q_radiation', 'q_total', 'heat_rate_radiation', 'heat_rate_total', 'radiation_fraction'] : [];
   const local = c.regime === 'external' ? ['h_x', 'velocity', 'adiabatic_wall_temperature', 'delta99', 'Ec'] : ['h_x', 'delta99'];
-  return [...common, ...local, ...radiation];
+  return [...common, ...local, ...radiation, ...(c.extensionOutputs ?? [])];
 }
 
 /** The configuration as the catalogue shows it (`methods --json`, the dashboard): with its full input and output lists. */

@@ -4,6 +4,7 @@
 import { MonotoneCubic } from '../fluids/monotoneCubic.js';
 import { rangeFlags } from '../ranges.js';
 import { InputError, type InputSpec, type Method, type OutputSpec, type ValidityRange } from '../types.js';
+import { laminarEntryFlag, shortTubeFactor, shortTubeInput, turbulentEntryFlag } from './entry-length.js';
 import { optionalLengthRatio, withPressureDrop } from './friction.js';
 import { readInputs, type MethodInputs } from './method-inputs.js';
 import { LAMINAR_RE_LIMIT, type WallCondition } from './pipe.js';
@@ -101,9 +102,9 @@ export function annulusWallFactor(a: number, wall: HeatedWall): number {
 
 /**
  * Nu = (ξ/8) Re Pr / [k1 + 12.7 (ξ/8)^½ (Pr^⅔ − 1)] · [1 + (D_h/L)^⅔] · F_ann,
- * k1 = 1.07 + 900/Re − 0.63/(1 + 10 Pr). `lengthRatio` L/D_h (undefined: fully developed).
+ * k1 = 1.07 + 900/Re − 0.63/(1 + 10 Pr). `shortTube` L/D_h for the entry factor (undefined: fully developed).
  */
-export function gnielinskiAnnulus(Re: number, Pr: number, a: number, wall: HeatedWall, lengthRatio?: number): AnnulusTurbulentResult {
+export function gnielinskiAnnulus(Re: number, Pr: number, a: number, wall: HeatedWall, shortTube?: number): AnnulusTurbulentResult {
   const Re_star = Re * annulusReynoldsRatio(a);
   const root = 1.8 * Math.log10(Re_star) - 1.5;
   // Konakov's friction law has a pole at Re* ≈ 6.8: far outside any range, and meaningless there.
@@ -112,7 +113,7 @@ export function gnielinskiAnnulus(Re: number, Pr: number, a: number, wall: Heate
   const f8 = f / 8;
   const k1 = 1.07 + 900 / Re - 0.63 / (1 + 10 * Pr);
   const developed = (f8 * Re * Pr) / (k1 + 12.7 * Math.sqrt(f8) * (Pr ** (2 / 3) - 1));
-  const entry = lengthRatio === undefined ? 1 : 1 + lengthRatio ** (-2 / 3);
+  const entry = shortTube === undefined ? 1 : shortTubeFactor(shortTube);
   const annulus_factor = annulusWallFactor(a, wall);
   return { Nu: developed * entry * annulus_factor, f, annulus_factor, Re_star };
 }
@@ -140,6 +141,12 @@ const heatedWallInput: InputSpec = {
   required: false,
   default: 'inner',
   choices: ['inner', 'outer'],
+};
+const optionalPrInput: InputSpec = {
+  name: 'Pr',
+  description: 'Prandtl number at the bulk temperature (optional: with L_over_D it gives the thermal entry-length check)',
+  unit: '1',
+  required: false,
 };
 const lengthInput = (note: string): InputSpec => ({
   name: 'L_over_D',
@@ -175,7 +182,8 @@ const laminarAnnulus: Method = {
       default: 'temperature',
       choices: ['temperature', 'flux'],
     },
-    lengthInput('gives pressure_drop_coefficient'),
+    lengthInput('gives pressure_drop_coefficient and the entry-length check'),
+    optionalPrInput,
   ],
   outputs: [
     ...outputs('exact laminar (f·Re)/Re (fully developed; the entry region adds to it)'),
@@ -184,6 +192,7 @@ const laminarAnnulus: Method = {
   ranges: [
     { input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar flow, Re on D_h' },
     { input: 'diameter_ratio', min: LAMINAR_ANNULUS_MIN_RATIO, note: 'heated inner wall only: the first row of the table' },
+    { input: 'L_over_D', note: 'fully developed: flagged entry-region where L/D_h < 0.05·Re·max(1, Pr)' },
   ],
   uncertainty: {
     fraction: 0.1,
@@ -201,7 +210,10 @@ const laminarAnnulus: Method = {
     const fRe = annulusLaminarFRe(a);
     const [reRange, ratioRange] = laminarAnnulus.ranges;
     const flags = rangeFlags(wall === 'inner' ? [reRange, ratioRange] : [reRange], input.values);
-    return { outputs: { ...withPressureDrop(Nu, fRe / Re, optionalLengthRatio(input)), f_Re: fRe }, flags };
+    const LD = optionalLengthRatio(input);
+    const entry = laminarEntryFlag(Re, input.values.Pr === undefined ? undefined : input.number('Pr'), LD);
+    if (entry) flags.push(entry);
+    return { outputs: { ...withPressureDrop(Nu, fRe / Re, LD), f_Re: fRe }, flags };
   },
 };
 
@@ -209,8 +221,17 @@ const laminarAnnulus: Method = {
 export const gnielinskiAnnulusRanges: ValidityRange[] = [
   { input: 'Re', min: 1e4, max: 1e6, note: 'fully turbulent, Re on D_h (from memory)' },
   { input: 'Pr', min: 0.6, max: 1000, note: 'from memory' },
-  { input: 'L_over_D', min: 1, note: 'the entry factor 1 + (D_h/L)^⅔ holds for D_h/L ≤ 1' },
 ];
+const turbulentEntry: ValidityRange = { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D_h = 10 unless short_tube_correction' };
+
+/** Nu with the optional short-tube factor and the entry-region flag, as the pipe methods do. */
+export function turbulentChannelLength(input: MethodInputs): { shortTube?: number; flags: string[] } {
+  const LD = optionalLengthRatio(input);
+  const corrected = input.boolean('short_tube_correction');
+  if (corrected && LD === undefined) throw new InputError('short_tube_correction needs L_over_D');
+  const flag = turbulentEntryFlag(LD, corrected);
+  return { shortTube: corrected ? LD : undefined, flags: flag ? [flag] : [] };
+}
 
 const turbulentAnnulus: Method = {
   id: 'turbulent-annulus',
@@ -218,16 +239,16 @@ const turbulentAnnulus: Method = {
   kind: 'correlation',
   title: 'Gnielinski annulus (turbulent, heated inner or outer wall)',
   description:
-    "Turbulent flow in a smooth concentric annulus, one wall heated and the other insulated: Gnielinski's tube correlation on D_h = D_o − D_i with the friction factor taken at the laminar-equivalent Reynolds number Re* and his heated-wall factor F_ann (0.75 a^−0.17 inner, 0.9 − 0.15 a^0.6 outer). With L_over_D the mean over the length includes the entry factor 1 + (D_h/L)^⅔; without it, fully developed flow. No wall-to-bulk property correction (the factor K of the source is 1).",
+    "Turbulent flow in a smooth concentric annulus, one wall heated and the other insulated: Gnielinski's tube correlation on D_h = D_o − D_i with the friction factor taken at the laminar-equivalent Reynolds number Re* and his heated-wall factor F_ann (0.75 a^−0.17 inner, 0.9 − 0.15 a^0.6 outer). Fully developed flow; short_tube_correction applies the source's entry factor 1 + (D_h/L)^⅔ (else flagged entry-region below L/D_h = 10). No wall-to-bulk property correction (the factor K of the source is 1).",
   equation:
     '\\mathrm{Nu}_{D_h} = \\frac{(\\xi/8)\\,\\mathrm{Re}\\,\\mathrm{Pr}}{k_1 + 12.7\\sqrt{\\xi/8}\\,(\\mathrm{Pr}^{2/3} - 1)}\\left[1 + \\left(\\frac{D_h}{L}\\right)^{2/3}\\right] F_{ann},\\quad \\xi = (1.8\\log_{10}\\mathrm{Re}^* - 1.5)^{-2},\\quad k_1 = 1.07 + \\frac{900}{\\mathrm{Re}} - \\frac{0.63}{1 + 10\\,\\mathrm{Pr}},\\quad \\mathrm{Re}^* = \\mathrm{Re}\\,\\frac{(1 + a^2)\\ln a + 1 - a^2}{(1 - a)^2 \\ln a},\\quad F_{ann} = 0.75\\,a^{-0.17}\\ (\\text{inner}),\\ 0.9 - 0.15\\,a^{0.6}\\ (\\text{outer})',
-  inputs: [ReInput, PrInput, ratioInput, heatedWallInput, lengthInput('the mean over the length includes the entry factor; gives pressure_drop_coefficient')],
+  inputs: [ReInput, PrInput, ratioInput, heatedWallInput, lengthInput('gives pressure_drop_coefficient and the entry-region check'), shortTubeInput],
   outputs: [
     ...outputs('ξ = (1.8 log10 Re* − 1.5)^−2 (Konakov, at the laminar-equivalent Re*)'),
     { name: 'Re_star', description: 'laminar-equivalent Reynolds number Re* used for the friction factor', unit: '1' },
     { name: 'annulus_factor', description: 'heated-wall factor F_ann of the source', unit: '1' },
   ],
-  ranges: gnielinskiAnnulusRanges,
+  ranges: [...gnielinskiAnnulusRanges, turbulentEntry],
   uncertainty: {
     fraction: 0.15,
     note: "Common practice: Gnielinski's tube correlation is ±10 % (Incropera §8.5, from memory); the annulus factor adds the scatter of the annulus data. Agrees with Petukhov & Roizen's (1964) annulus ratios within 12 % (tests).",
@@ -237,16 +258,11 @@ const turbulentAnnulus: Method = {
   version: 1,
   evaluate(raw) {
     const input = readInputs(turbulentAnnulus, raw);
-    const r = gnielinskiAnnulus(
-      input.number('Re'),
-      input.number('Pr'),
-      readDiameterRatio(input),
-      input.string('heated_wall') as HeatedWall,
-      optionalLengthRatio(input),
-    );
+    const length = turbulentChannelLength(input);
+    const r = gnielinskiAnnulus(input.number('Re'), input.number('Pr'), readDiameterRatio(input), input.string('heated_wall') as HeatedWall, length.shortTube);
     return {
       outputs: { ...withPressureDrop(r.Nu, r.f, optionalLengthRatio(input)), Re_star: r.Re_star, annulus_factor: r.annulus_factor },
-      flags: rangeFlags(turbulentAnnulus.ranges, input.values),
+      flags: [...rangeFlags(gnielinskiAnnulusRanges, input.values), ...length.flags],
     };
   },
 };

@@ -3,7 +3,8 @@
 // properties at the bulk temperature; Nu is a heated wall's, h = q″/(T_wall − T_m).
 import { rangeFlags } from '../ranges.js';
 import type { InputSpec, Method, OutputSpec } from '../types.js';
-import { gnielinskiAnnulus, gnielinskiAnnulusRanges } from './annulus.js';
+import { gnielinskiAnnulus, gnielinskiAnnulusRanges, turbulentChannelLength } from './annulus.js';
+import { laminarEntryFlag, shortTubeFactor, shortTubeInput } from './entry-length.js';
 import { optionalLengthRatio, petukhovFrictionFactor, withPressureDrop } from './friction.js';
 import { readInputs } from './method-inputs.js';
 import { gnielinskiNusselt, gnielinskiRanges, LAMINAR_RE_LIMIT, type WallCondition } from './pipe.js';
@@ -72,9 +73,18 @@ const laminarParallelPlates: Method = {
       choices: ['temperature', 'flux'],
     },
     lengthInput,
+    {
+      name: 'Pr',
+      description: 'Prandtl number at the bulk temperature (optional: with L_over_D it gives the thermal entry-length check)',
+      unit: '1',
+      required: false,
+    },
   ],
   outputs: outputs('96/Re (plane Poiseuille flow, fully developed; the entry region adds to it)'),
-  ranges: [{ input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar flow, Re on D_h' }],
+  ranges: [
+    { input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar flow, Re on D_h' },
+    { input: 'L_over_D', note: 'fully developed: flagged entry-region where L/D_h < 0.05·Re·max(1, Pr)' },
+  ],
   uncertainty: {
     fraction: 0.1,
     note: 'Exact for constant properties and fully developed flow (checked against tests/fixtures/laminar_duct_reference.py and annulus_reference.py); ±10 % for real channels, where properties vary, is common practice.',
@@ -87,9 +97,11 @@ const laminarParallelPlates: Method = {
     const Re = input.number('Re');
     const walls = input.string('heated_walls') as HeatedWalls;
     const Nu = PARALLEL_PLATES_LAMINAR_NU[walls][input.string('wall_condition') as WallCondition];
+    const LD = optionalLengthRatio(input);
+    const entry = laminarEntryFlag(Re, input.values.Pr === undefined ? undefined : input.number('Pr'), LD);
     return {
-      outputs: withPressureDrop(Nu, PARALLEL_PLATES_F_RE / Re, optionalLengthRatio(input)),
-      flags: rangeFlags(laminarParallelPlates.ranges, input.values),
+      outputs: withPressureDrop(Nu, PARALLEL_PLATES_F_RE / Re, LD),
+      flags: [...rangeFlags(laminarParallelPlates.ranges, input.values), ...(entry ? [entry] : [])],
     };
   },
 };
@@ -103,9 +115,9 @@ const turbulentParallelPlates: Method = {
     "Fully developed transitional and turbulent flow between smooth parallel plates. Both walls heated: Gnielinski's tube correlation with the Petukhov friction factor on D_h = 2·gap. One wall heated, the other insulated: the same author's annulus correlation in its parallel-plate limit D_i/D_o → 1 (friction at Re* = ⅔Re, heated-wall factor 0.75), which gives 13–24 % less than both walls heated over Re 1e4–1e6 and Pr 0.7–100; its own ranges (Re ≥ 1e4) apply.",
   equation:
     '\\text{both: } \\mathrm{Nu}_{D_h} = \\frac{(f/8)(\\mathrm{Re} - 1000)\\mathrm{Pr}}{1 + 12.7\\,(f/8)^{1/2}(\\mathrm{Pr}^{2/3} - 1)},\\ f = (0.790\\ln\\mathrm{Re} - 1.64)^{-2};\\quad \\text{one: } \\mathrm{Nu}_{D_h} = 0.75\\,\\frac{(\\xi/8)\\,\\mathrm{Re}\\,\\mathrm{Pr}}{k_1 + 12.7\\sqrt{\\xi/8}\\,(\\mathrm{Pr}^{2/3} - 1)},\\ \\xi = (1.8\\log_{10}\\tfrac{2}{3}\\mathrm{Re} - 1.5)^{-2},\\quad D_h = 2\\,\\text{gap}',
-  inputs: [ReInput, { name: 'Pr', description: 'Prandtl number at the bulk temperature', unit: '1', required: true }, heatedWallsInput, lengthInput],
+  inputs: [ReInput, { name: 'Pr', description: 'Prandtl number at the bulk temperature', unit: '1', required: true }, heatedWallsInput, lengthInput, shortTubeInput],
   outputs: outputs('Petukhov on D_h (both walls) or Konakov at Re* = ⅔Re (one wall)'),
-  ranges: gnielinskiRanges,
+  ranges: [...gnielinskiRanges, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D_h = 10 unless short_tube_correction' }],
   uncertainty: {
     fraction: 0.15,
     note: "Gnielinski's ±10 % for circular tubes (Incropera §8.5, from memory), widened for the hydraulic-diameter approximation and the one-wall case: common practice.",
@@ -118,14 +130,14 @@ const turbulentParallelPlates: Method = {
     const Re = input.number('Re');
     const Pr = input.number('Pr');
     const lengthRatio = optionalLengthRatio(input);
+    const length = turbulentChannelLength(input);
     if ((input.string('heated_walls') as HeatedWalls) === 'one') {
-      // Fully developed here (no entry factor), like the both-walls form.
-      const r = gnielinskiAnnulus(Re, Pr, 1, 'inner');
-      const ranges = gnielinskiAnnulusRanges.filter((x) => x.input !== 'L_over_D');
-      return { outputs: withPressureDrop(r.Nu, r.f, lengthRatio), flags: rangeFlags(ranges, input.values) };
+      const r = gnielinskiAnnulus(Re, Pr, 1, 'inner', length.shortTube);
+      return { outputs: withPressureDrop(r.Nu, r.f, lengthRatio), flags: [...rangeFlags(gnielinskiAnnulusRanges, input.values), ...length.flags] };
     }
     const f = petukhovFrictionFactor(Re);
-    return { outputs: withPressureDrop(gnielinskiNusselt(Re, Pr, f), f, lengthRatio), flags: rangeFlags(gnielinskiRanges, input.values) };
+    const Nu = gnielinskiNusselt(Re, Pr, f) * (length.shortTube === undefined ? 1 : shortTubeFactor(length.shortTube));
+    return { outputs: withPressureDrop(Nu, f, lengthRatio), flags: [...rangeFlags(gnielinskiRanges, input.values), ...length.flags] };
   },
 };
 

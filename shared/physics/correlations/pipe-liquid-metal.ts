@@ -5,6 +5,7 @@
 // These are `pipe` methods: the catalogue registers them with the other pipe correlations.
 import { rangeFlags } from '../ranges.js';
 import type { InputSpec, Method, OutputSpec, ValidityRange } from '../types.js';
+import { turbulentEntryFlag } from './entry-length.js';
 import { optionalLengthRatio, petukhovFrictionFactor, withPressureDrop } from './friction.js';
 import { readInputs } from './method-inputs.js';
 
@@ -38,10 +39,16 @@ const outputs: OutputSpec[] = [
 ];
 
 const liquidMetalPr: ValidityRange = { input: 'Pr', max: 0.1, note: 'liquid metals; ordinary fluids have Pr ≳ 0.7 and other methods' };
-const developed: ValidityRange = { input: 'L_over_D', min: 10, note: 'fully developed turbulent flow (common practice)' };
+const developed: ValidityRange = { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' };
 const liquidMetalUncertainty = {
   fraction: 0.25,
   note: 'Common practice: liquid-metal data scatter widely (wetting of the wall, oxides, entrained gas); the sources state no single figure.',
+};
+
+/** The entry-region flag of a fully developed turbulent form (no short-tube factor: Hausen's is for ordinary fluids). */
+const withEntry = (flags: string[], LD: number | undefined) => {
+  const entry = turbulentEntryFlag(LD, false);
+  return entry ? [...flags, entry] : flags;
 };
 
 const sebanShimazaki: Method = {
@@ -55,6 +62,7 @@ const sebanShimazaki: Method = {
   inputs,
   outputs,
   ranges: [{ input: 'Pe', min: 100, note: 'Pe = Re·Pr (derived)' }, liquidMetalPr, developed],
+  wallConditions: ['temperature'],
   uncertainty: liquidMetalUncertainty,
   source:
     'Seban, R.A. & Shimazaki, T.T. (1951) Heat transfer to a fluid flowing turbulently in a smooth pipe with walls at constant temperature, Trans. ASME 73:803–809; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 8.65 (equation number from memory)',
@@ -63,8 +71,9 @@ const sebanShimazaki: Method = {
     const input = readInputs(sebanShimazaki, raw);
     const Re = input.number('Re');
     const Pe = Re * input.number('Pr');
-    const out = withPressureDrop(sebanShimazakiNusselt(Pe), petukhovFrictionFactor(Re), optionalLengthRatio(input));
-    return { outputs: { ...out, Pe }, flags: rangeFlags(sebanShimazaki.ranges, { ...input.values, Pe }) };
+    const LD = optionalLengthRatio(input);
+    const out = withPressureDrop(sebanShimazakiNusselt(Pe), petukhovFrictionFactor(Re), LD);
+    return { outputs: { ...out, Pe }, flags: withEntry(rangeFlags(sebanShimazaki.ranges, { ...input.values, Pe }), LD) };
   },
 };
 
@@ -84,6 +93,7 @@ const skupinski: Method = {
     liquidMetalPr,
     developed,
   ],
+  wallConditions: ['flux'],
   uncertainty: liquidMetalUncertainty,
   source:
     'Skupinski, E., Tortel, J. & Vautrey, L. (1965) Détermination des coefficients de convection d’un alliage sodium-potassium dans un tube circulaire, Int. J. Heat Mass Transfer 8:937–951; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 8.64 (equation number from memory)',
@@ -92,8 +102,9 @@ const skupinski: Method = {
     const input = readInputs(skupinski, raw);
     const Re = input.number('Re');
     const Pe = Re * input.number('Pr');
-    const out = withPressureDrop(skupinskiNusselt(Pe), petukhovFrictionFactor(Re), optionalLengthRatio(input));
-    return { outputs: { ...out, Pe }, flags: rangeFlags(skupinski.ranges, { ...input.values, Pe }) };
+    const LD = optionalLengthRatio(input);
+    const out = withPressureDrop(skupinskiNusselt(Pe), petukhovFrictionFactor(Re), LD);
+    return { outputs: { ...out, Pe }, flags: withEntry(rangeFlags(skupinski.ranges, { ...input.values, Pe }), LD) };
   },
 };
 

@@ -123,6 +123,7 @@ const teertstra: Method = {
     { input: 'Re_star', min: 0.1, max: 100, note: 'Re* = Re_b·b/L (derived): the span of the data compared by the authors (from memory)' },
     { input: 'Pr', min: 0.6, note: 'the laminar flat-plate term' },
   ],
+  wallConditions: ['temperature'],
   uncertainty: {
     fraction: 0.15,
     note: 'The authors report agreement with their heat-sink measurements within about 6 % (from memory); ±15 % for other fin arrays is common practice.',

@@ -114,6 +114,7 @@ export function elenbaasMethod(configuration: string, { ratio, lengthWords }: Ch
     inputs: [channelRaInput, ratio],
     outputs: channelOutputs,
     ranges: channelRanges,
+    wallConditions: ['temperature'],
     uncertainty: {
       fraction: 0.15,
       note: 'Common practice: Elenbaas fitted his air measurements on square plates; the source states no single figure.',
@@ -143,6 +144,7 @@ export function barCohenRohsenowMethod(configuration: string, { ratio, lengthWor
     inputs: [channelRaInput, ratio, channelWallsInput],
     outputs: channelOutputs,
     ranges: channelRanges,
+    wallConditions: ['temperature'],
     uncertainty: { fraction: 0.15, note: 'Common practice: the source states no single figure.' },
     source: barCohenRohsenowSource,
     version: 1,
