@@ -211,6 +211,8 @@ geometryExtensions.set('impinging-jet', impingingJet);
 outputExtensions.set('vertical-channel', optimumGap('height'));
 outputExtensions.set('plate-fin-heat-sink', heatSinkOutputs);
 
+// The pipe's geometry is built in geometry.ts; its roughness group is derivable like the others.
+derivableExtensions.set('pipe', (have) => when(have, ['roughness', 'diameter'], 'relative_roughness'));
 derivableExtensions.set('annulus', (have) => [...when(have, ['inner_diameter', 'outer_diameter'], 'diameter_ratio'), ...when(have, ['length'], 'L_over_D')]);
 derivableExtensions.set('parallel-plates', (have) => when(have, ['length'], 'L_over_D'));
 derivableExtensions.set('vertical-channel', (have) => when(have, ['gap', 'height'], 'gap_over_height'));

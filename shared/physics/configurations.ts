@@ -78,16 +78,16 @@ export const configurations: Configuration[] = [
   {
     id: 'pipe',
     title: 'Circular pipe, internal flow',
-    description: 'Fully developed and entry-region flow in a smooth circular tube.',
+    description: 'Fully developed and entry-region flow in a circular tube, smooth or (with roughness) commercially rough.',
     regime: 'internal',
     lengthNote: 'inner diameter D',
     propertyRule: 'bulk',
-    dimensionalInputs: ['velocity', 'flow_rate', 'diameter', 'length'],
+    dimensionalInputs: ['velocity', 'flow_rate', 'diameter', 'length', 'roughness'],
     conventions:
       'fluid_temperature is the INLET bulk temperature. With surface_temperature (uniform wall temperature) the outlet follows from ' +
       'T_s − T_out = (T_s − T_in)·exp(−h̄PL/(ṁc_p)); with heat_flux (uniform flux) from T_out = T_in + q″PL/(ṁc_p). Bulk properties at ' +
       '(T_in + T_out)/2, wall properties at the wall. velocity and flow_rate are taken at the inlet (ṁ = ρ_in·u·A). Without length: no ' +
-      'energy balance, properties at the inlet temperature.',
+      'energy balance, properties at the inlet temperature. roughness (absolute ε, with units) gives relative_roughness = ε/D: the Colebrook f.',
   },
   {
     id: 'duct',

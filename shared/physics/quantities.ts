@@ -32,6 +32,7 @@ export const dimensionalQuantities: QuantitySpec[] = [
   { name: 'fin_conductivity', unit: 'W/(m K)', description: 'heat sink: thermal conductivity of the fin material' },
   { name: 'radius', unit: 'm', description: 'impinging jet: radius of the disc the average covers (single nozzle)' },
   { name: 'pitch', unit: 'm', description: 'impinging jet: nozzle pitch (arrays)' },
+  { name: 'roughness', unit: 'm', description: 'pipe: absolute wall roughness ε (the Colebrook friction factor, and Gnielinski with it)' },
 ];
 
 export const dimensionalNames = new Set(dimensionalQuantities.map((q) => q.name));
