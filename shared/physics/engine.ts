@@ -13,7 +13,7 @@ import { getMethod, methodsFor, requireConfiguration } from './catalogue.js';
 import { dimensionalInputsOf, engineInputsOf, hasEnergyBalance, type Configuration } from './configurations.js';
 import { derivableExtensions, outputExtensions } from './extensions.js';
 import './catalogue-extensions.js'; // registers the newer configurations' geometry and outputs
-import { getFluid, makeConstantFluid, makeTableFluid } from './fluids/index.js';
+import { resolveFluidSpec, type FluidSpec } from './fluids/index.js';
 import { FluidRangeError, type Fluid } from './fluids/types.js';
 import { evaluateDimensionless, MethodDomainError, type PointContext, type ResultRow } from './forward.js';
 import { geometryOf } from './geometry.js';
@@ -27,10 +27,7 @@ import { PointConflictError } from './wall-condition.js';
 
 export { MethodDomainError, propertyRuleOf, type ResultRow } from './forward.js';
 
-export type FluidSpec =
-  | string
-  | { constant: { rho: number; cp: number; mu: number; k: number; beta?: number } }
-  | { table: { T: number[]; rho: number[]; cp: number[]; mu: number[]; k: number[]; beta?: number[] } };
+export type { FluidSpec } from './fluids/index.js';
 
 /** What a point needs besides its inputs: the same for every point of a study. */
 export interface SolvePlan {
@@ -41,10 +38,7 @@ export interface SolvePlan {
 }
 
 export function resolveFluid(spec: FluidSpec): Fluid {
-  if (typeof spec === 'string') return getFluid(spec);
-  if ('constant' in spec) return makeConstantFluid(spec.constant);
-  if ('table' in spec) return makeTableFluid({ columns: spec.table });
-  throw new InputError('fluid: expected a catalogue name, {constant: {...}} or {table: {...}}');
+  return resolveFluidSpec(spec);
 }
 
 export interface SolveOptions {

@@ -9,13 +9,15 @@ import { InputError, type Flag, type Method } from './types.js';
 export const P_ATM = 101325;
 
 /** How a fluid uses the point's pressure. */
-type PressureUse = 'ideal-gas' | 'saturation';
+type PressureUse = 'ideal-gas' | 'saturation' | 'in-spec';
 
 // Air behaves as an ideal gas: ρ ∝ p, so ν and α scale with 1/p; μ, k, c_p and Pr barely
 // depend on pressure at these conditions (Incropera, Table A.4 note). Water: the tables
 // are the saturated / 1 atm liquid (compressed-liquid effects on ρ, μ, k are below 0.5 %
 // up to 5 MPa, IAPWS, common practice), and the pressure sets the boiling check.
-const PRESSURE_USE: Record<string, PressureUse> = { air: 'ideal-gas', water: 'saturation' };
+// Humid air is built for one pressure (its spec carries the study's fixed `pressure`,
+// fluids/spec.ts): its properties already hold at that pressure, so nothing is scaled here.
+const PRESSURE_USE: Record<string, PressureUse> = { air: 'ideal-gas', water: 'saturation', 'humid-air': 'in-spec' };
 
 export interface PropertyReader {
   fluid: Fluid;

@@ -153,8 +153,8 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     else sweepComplete = complete = false;
   }
 
-  // Fluid, with constant properties in SI.
-  const fluid = rawFluid === undefined ? undefined : convertFluid(rawFluid, report);
+  // Fluid, with constant properties and mixture parameters in SI.
+  const fluid = rawFluid === undefined ? undefined : convertFluid(rawFluid, report, { inputs, sweptNames });
   if (rawFluid !== undefined && fluid === undefined) complete = false;
 
   // Names against the catalogue: unknown, missing, and whether a fluid is needed.
@@ -392,10 +392,18 @@ function plainNumber(v: number | string): number {
 // SI units of the `{constant: {...}}` properties, as mathjs spells them.
 const propertyUnits = { rho: 'kg/m^3', cp: 'J/(kg K)', mu: 'Pa s', k: 'W/(m K)', beta: 'K^-1' } as const;
 
-function convertFluid(raw: NonNullable<StudyFile['fluid']>, report: Report): FluidSpec | undefined {
+function convertFluid(
+  raw: NonNullable<StudyFile['fluid']>,
+  report: Report,
+  study: { inputs: Inputs; sweptNames: string[] },
+): FluidSpec | undefined {
   let spec: FluidSpec;
   if (typeof raw === 'string' || 'table' in raw) spec = raw;
-  else {
+  else if ('name' in raw) {
+    const mixture = convertMixture(raw, report, study);
+    if (!mixture) return undefined;
+    spec = mixture;
+  } else {
     const constant: Record<string, number> = {};
     let ok = true;
     for (const [key, value] of Object.entries(raw.constant)) {
@@ -419,6 +427,36 @@ function convertFluid(raw: NonNullable<StudyFile['fluid']>, report: Report): Flu
     report(['fluid'], e.message);
     return undefined;
   }
+}
+
+type RawMixture = Extract<NonNullable<StudyFile['fluid']>, { name: string }>;
+
+// `{name, concentration: 40 %}` or `{name: humid-air, relative_humidity: 60 %}` in SI
+// fractions. Humid air takes the study's fixed `pressure` input (default 1 atm, see
+// fluids/humidAir.ts): its composition at a given relative humidity depends on the
+// pressure, and a study resolves its fluid once, so a swept pressure is refused.
+function convertMixture(raw: RawMixture, report: Report, study: { inputs: Inputs; sweptNames: string[] }): FluidSpec | undefined {
+  const spec: { name: string; concentration?: number; relative_humidity?: number; pressure?: number } = { name: raw.name };
+  let ok = true;
+  for (const key of ['concentration', 'relative_humidity'] as const) {
+    const value = raw[key];
+    if (value === undefined) continue;
+    if (typeof value === 'number' && value > 1) {
+      report(['fluid', key], `${key}: ${value} reads as a fraction (${value * 100} %); write "${value} %" or ${value / 100}`);
+      ok = false;
+      continue;
+    }
+    spec[key] = relativeOf(value);
+  }
+  if (raw.name === 'humid-air') {
+    if (study.sweptNames.includes('pressure')) {
+      report(['sweep', 'over', 'pressure'], "humid-air takes one pressure per study (its composition at a relative humidity depends on it): fix 'pressure' under inputs", true);
+      ok = false;
+    }
+    const pressure = study.inputs.pressure;
+    if (typeof pressure === 'number') spec.pressure = pressure;
+  }
+  return ok ? spec : undefined;
 }
 
 /** Design rules and the point limit, from entry lengths alone; false when something was reported. */
