@@ -206,3 +206,21 @@ describe('inclined-plate and impinging-jet', () => {
     expect(r.outputs.surface_area).toBeCloseTo(0.09, 14);
   });
 });
+
+describe('liquid metals in a pipe (sodium)', () => {
+  const pipe = { diameter: 0.02, length: 2, velocity: 2, fluid_temperature: 673.15 };
+  it('a heat flux selects Skupinski and flags Seban–Shimazaki (uniform wall temperature only)', () => {
+    const rows = solvePoint({ configuration: 'pipe', fluid: 'sodium', methods: ['skupinski', 'seban-shimazaki'] }, { ...pipe, heat_flux: 2e5 });
+    expect(rows[0].flags).toEqual([]);
+    expect(rows[0].outputs.Pe).toBeCloseTo(rows[0].outputs.Re * rows[0].outputs.Pr, 9);
+    expect(rows[0].outputs.heat_rate).toBeCloseTo(2e5 * Math.PI * 0.02 * 2, 6);
+    expect(rows[1].flags).toContain('no-flux-form');
+  });
+  it('a wall temperature: Seban–Shimazaki, h = Nu·k/D at the mean bulk temperature', () => {
+    const [r] = solvePoint({ configuration: 'pipe', fluid: 'sodium', methods: ['seban-shimazaki'] }, { ...pipe, surface_temperature: 723.15 });
+    const k = getFluid('sodium').properties(r.outputs.mean_bulk_temperature).k;
+    expect(r.outputs.h).toBeCloseTo((r.outputs.Nu * k) / 0.02, 9);
+    expect(r.outputs.Nu).toBeCloseTo(5 + 0.025 * r.outputs.Pe ** 0.8, 12);
+    expect(r.flags).toEqual([]);
+  });
+});
