@@ -1,12 +1,12 @@
 // Reading runs back: used by the CLI (list, show, export) and the dashboard server.
 import { sql } from 'kysely';
-import type { ResultRow } from '../physics/engine.js';
 import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import type { MethodVersion } from './runs.js';
 import type { RunStatus } from './schema.js';
 import { jsonNumberSql, jsonTextSql } from './dialect.js';
 import type { Store } from './store.js';
 import type { RunInfo } from '../export/run-info.js';
+import type { ExportRow } from '../export/types.js';
 
 /** A run as exports and the API show it (one definition, shared with the web app). */
 export type { RunInfo };
@@ -122,21 +122,25 @@ export async function resolveRunRef(store: Store, ref: string | number): Promise
   return run;
 }
 
-/** Every result of a run, in point order then method order. */
-export async function getRunRows(store: Store, runId: number): Promise<{ run: RunInfo; rows: ResultRow[] }> {
+/**
+ * Every result of a run, in point order then method order; each row says whether its
+ * method is the point's recommended one where the run has per-point summaries (0004).
+ */
+export async function getRunRows(store: Store, runId: number): Promise<{ run: RunInfo; rows: ExportRow[] }> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
   const raw = await store.db
     .selectFrom('results as r')
     .innerJoin('points as p', (j) => j.onRef('p.run_id', '=', 'r.run_id').onRef('p.idx', '=', 'r.point_idx'))
-    .select(['r.point_idx', 'r.method', 'r.flags'])
+    .leftJoin('point_summaries as s', (j) => j.onRef('s.run_id', '=', 'r.run_id').onRef('s.point_idx', '=', 'r.point_idx'))
+    .select(['r.point_idx', 'r.method', 'r.flags', 's.point_idx as summarized', 's.recommended'])
     .select(jsonTextSql(store.db, 'p.inputs').as('inputs'))
     .select(jsonTextSql(store.db, 'r.outputs').as('outputs'))
     .where('r.run_id', '=', runId)
     .orderBy('r.point_idx')
     .orderBy('r.method_idx')
     .execute();
-  const rows: ResultRow[] = [];
+  const rows: ExportRow[] = [];
   let lastPoint = -1;
   let inputs: Inputs = {};
   for (const r of raw) {
@@ -145,7 +149,9 @@ export async function getRunRows(store: Store, runId: number): Promise<{ run: Ru
       inputs = JSON.parse(r.inputs) as Inputs;
       lastPoint = r.point_idx;
     }
-    rows.push({ method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] });
+    const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
+    if (r.summarized !== null) row.recommended = r.recommended === r.method;
+    rows.push(row);
   }
   return { run, rows };
 }

@@ -85,6 +85,7 @@ export interface Database {
   mail_outbox: MailOutboxTable;
   audit_log: AuditLogTable;
   result_caches: ResultCachesTable;
+  point_summaries: PointSummariesTable;
 }
 
 export type RunRow = Selectable<RunsTable>;
@@ -190,4 +191,18 @@ export interface ResultCachesTable {
   /** JSON `{inputs: [names], outputs: [names]}`; column i_<k> / o_<k> holds name k. */
   columns: string;
   built_at: string;
+}
+
+/** migrations/0004_point_summaries.ts: one design summary per point (shared/design/summary.ts). */
+export interface PointSummariesTable {
+  run_id: number;
+  point_idx: number;
+  recommended: string | null;
+  /** JSON array of method ids. */
+  applicable: string;
+  spread: number | null;
+  spread_of: string | null;
+  reason: string;
+  /** JSON array of flags. */
+  flags: string;
 }

@@ -8,7 +8,7 @@ import type { RunExport } from './types.js';
 export function toJson(data: RunExport): string {
   const run = JSON.stringify(data.run, null, 2).replace(/\n/g, '\n  ');
   const rows = data.rows.map((r) =>
-    JSON.stringify({ method: r.method, inputs: r.inputs, outputs: r.outputs, flags: r.flags }),
+    JSON.stringify({ method: r.method, inputs: r.inputs, outputs: r.outputs, flags: r.flags, ...(r.recommended !== undefined && { recommended: r.recommended }) }),
   );
   const rowsText = rows.length ? `[\n    ${rows.join(',\n    ')}\n  ]` : '[]';
   return `{\n  "caution": ${JSON.stringify(CAUTION)},\n  "run": ${run},\n  "rows": ${rowsText}\n}\n`;

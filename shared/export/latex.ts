@@ -2,7 +2,7 @@
 // into a memo. Columns as chosen by memo-columns.ts. Long runs are split into several
 // `table` floats of `rowsPerTable` rows (default 40) so each fits a page; the first
 // carries the run's facts and the caution.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { CAUTION } from './caution.js';
 import type { MemoOptions } from './markdown.js';
 import { memoColumns } from './memo-columns.js';
@@ -69,9 +69,10 @@ function texHeader(c: Column): string {
   return c.unit === undefined ? label : `${label} [${latexUnit(c.unit)}]`;
 }
 
-function texCell(row: ResultRow, c: Column, figures: number): string {
+function texCell(row: ExportRow, c: Column, figures: number): string {
   if (c.kind === 'flags') return row.flags.map(escapeLatex).join(', ');
   if (c.kind === 'method') return escapeLatex(row.method);
+  if (c.kind === 'recommended') return row.recommended ? 'yes' : '';
   return texValue(c.kind === 'input' ? row.inputs[c.name] : row.outputs[c.name], figures);
 }
 

@@ -3,7 +3,7 @@
 // when the engine derived them, Nu, Nu_x, h, h_x) and the flags. Inputs that never change
 // are listed once above the table; every other column is named as left out (the CSV,
 // JSON and XLSX exports carry everything). `columns` picks the columns by name instead.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { InputError } from '../physics/types.js';
 import { resultColumns, type Column } from './table.js';
 import type { UnitLookup } from './units.js';
@@ -22,7 +22,7 @@ function sameValue(a: unknown, b: unknown): boolean {
   return a === b || (typeof a === 'number' && typeof b === 'number' && Object.is(a, b));
 }
 
-export function memoColumns(rows: readonly ResultRow[], unitOf: UnitLookup, columns?: readonly string[]): MemoColumns {
+export function memoColumns(rows: readonly ExportRow[], unitOf: UnitLookup, columns?: readonly string[]): MemoColumns {
   const all = resultColumns(rows, unitOf);
   if (columns?.length) {
     const shown = columns.map((name) => {
@@ -37,7 +37,7 @@ export function memoColumns(rows: readonly ResultRow[], unitOf: UnitLookup, colu
   const leftOut: string[] = [];
   const inputNames = new Set(all.filter((c) => c.kind === 'input').map((c) => c.name));
   for (const c of all) {
-    if (c.kind === 'method' || c.kind === 'flags') {
+    if (c.kind === 'method' || c.kind === 'flags' || c.kind === 'recommended') {
       shown.push(c);
     } else if (c.kind === 'input') {
       const values = rows.map((r) => r.inputs[c.name]);

@@ -1,11 +1,12 @@
 // The column model every tabular export shares: one column per input name and per output
 // name (union over rows, inputs first, each in first-seen order), framed by `method` and
-// `flags`. An output that shares its name with an input (the engine echoes `velocity`, for
+// `flags` (and `recommended`, true on the row of each point's recommended method, when the
+// run has per-point summaries). An output that shares its name with an input (the engine echoes `velocity`, for
 // example) gets its own column labelled `<name> (output)`, so nothing is merged or lost.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { displayUnit, type UnitLookup } from './units.js';
 
-export type ColumnKind = 'method' | 'input' | 'output' | 'flags';
+export type ColumnKind = 'method' | 'input' | 'output' | 'flags' | 'recommended';
 
 export interface Column {
   kind: ColumnKind;
@@ -22,7 +23,7 @@ export interface Column {
 
 export type CellValue = number | boolean | string | undefined;
 
-export function resultColumns(rows: readonly ResultRow[], unitOf: UnitLookup): Column[] {
+export function resultColumns(rows: readonly ExportRow[], unitOf: UnitLookup): Column[] {
   const inputNames = new Set<string>();
   const outputNames = new Set<string>();
   const numericInputs = new Set<string>();
@@ -46,6 +47,7 @@ export function resultColumns(rows: readonly ResultRow[], unitOf: UnitLookup): C
     columns.push({ kind: 'output', name, label, unit: unitFor(name) });
   }
   columns.push({ kind: 'flags', name: 'flags', label: 'flags' });
+  if (rows.some((r) => r.recommended !== undefined)) columns.push({ kind: 'recommended', name: 'recommended', label: 'recommended' });
   return columns;
 }
 
@@ -55,7 +57,7 @@ export function plainHeader(c: Column): string {
 }
 
 /** The raw value of a row in a column; flags joined by `;` (the CSV and XLSX form). */
-export function cellOf(row: ResultRow, c: Column): CellValue {
+export function cellOf(row: ExportRow, c: Column): CellValue {
   switch (c.kind) {
     case 'method':
       return row.method;
@@ -65,5 +67,7 @@ export function cellOf(row: ResultRow, c: Column): CellValue {
       return row.outputs[c.name];
     case 'flags':
       return row.flags.join(';');
+    case 'recommended':
+      return row.recommended;
   }
 }
