@@ -35,6 +35,7 @@ export const ROUTES: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/runs/:id/results', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/chart', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/export', access: 'viewer' },
+  { method: 'GET', path: '/api/runs/:id/points/:point', access: 'viewer' },
   { method: 'POST', path: '/api/runs/:id/reference', access: 'lead' },
   { method: 'GET', path: '/api/compare', access: 'viewer' },
 

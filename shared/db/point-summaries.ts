@@ -1,8 +1,10 @@
 // Per-point design summaries in the store (migrations/0004_point_summaries.ts): written
 // by the runner beside each batch, read by `show`, the exports and the API's point view.
 import type { PointSummary } from '../design/types.js';
+import type { ResultRow } from '../physics/engine.js';
+import type { Inputs, Outputs } from '../physics/types.js';
 import type { BatchWriter, EncodedBatch, WrittenCounts } from './batch-writer.js';
-import type { Statement } from './dialect.js';
+import { jsonTextSql, type Statement } from './dialect.js';
 import type { Store } from './store.js';
 
 /** A computed batch with the summary of each of its points (parallel to `points`). */
@@ -105,4 +107,34 @@ export async function getRecommendationCounts(store: Store, runId: number): Prom
 export async function getRecommendedByPoint(store: Store, runId: number): Promise<Map<number, string | null>> {
   const rows = await store.db.selectFrom('point_summaries').select(['point_idx', 'recommended']).where('run_id', '=', runId).execute();
   return new Map(rows.map((r) => [r.point_idx, r.recommended]));
+}
+
+export interface StoredPoint {
+  inputs: Inputs;
+  /** The point's rows, in the run's method order. */
+  rows: ResultRow[];
+}
+
+/** One stored point of a run with its results (undefined: no such point stored). */
+export async function getPointRows(store: Store, runId: number, pointIdx: number): Promise<StoredPoint | undefined> {
+  const point = await store.db
+    .selectFrom('points')
+    .select(jsonTextSql(store.db, 'inputs').as('inputs'))
+    .where('run_id', '=', runId)
+    .where('idx', '=', pointIdx)
+    .executeTakeFirst();
+  if (!point) return undefined;
+  const inputs = JSON.parse(point.inputs) as Inputs;
+  const results = await store.db
+    .selectFrom('results')
+    .select(['method', 'flags'])
+    .select(jsonTextSql(store.db, 'outputs').as('outputs'))
+    .where('run_id', '=', runId)
+    .where('point_idx', '=', pointIdx)
+    .orderBy('method_idx')
+    .execute();
+  return {
+    inputs,
+    rows: results.map((r) => ({ method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] })),
+  };
 }
