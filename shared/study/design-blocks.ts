@@ -114,7 +114,7 @@ export function resolveDesign(raw: RawDesignBlocks, ctx: DesignContext): { desig
   const given = [...ctx.fixedNames, ...ctx.sweptNames];
   for (const [name, rawValue] of Object.entries(raw.tolerances ?? {})) {
     const path: Path = ['tolerances', name];
-    if (raw.target && name === raw.target.adjust) {
+    if (raw.target && name === raw.target.adjust && numericInput(name)) {
       fail(path, `'${name}' is the target's adjusted input: its value is solved, not given, so it has no tolerance (its band comes out as ${name}_low/_high)`, true);
       continue;
     }
