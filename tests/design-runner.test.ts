@@ -117,7 +117,8 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
   it('stores solved inputs and bands as outputs, and exports carry a recommended column', async () => {
     const p = prepare(TARGET, 'target.yaml');
     const run = await runStudy(store, p, { workers: 2 });
-    const data = await getRunRows(store, run.id);
+    const data = await getRunRows(store, run.id, { recommended: true });
+    expect((await getRunRows(store, run.id)).rows[0].recommended).toBeUndefined();
     for (const row of data.rows) {
       expect(row.outputs.velocity_low).toBeLessThan(row.outputs.velocity);
       expect(row.outputs.velocity_high).toBeGreaterThan(row.outputs.velocity);

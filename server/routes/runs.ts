@@ -129,7 +129,7 @@ export function runsRouter(ctx: AppContext): Router {
     const { id } = parse(idParams, req.params, 'params');
     const { format } = parse(z.object({ format: z.enum(exportFormats as [string, ...string[]]).default('csv') }).strict(), req.query, 'query');
     if (!(await getDashboardRun(ctx.store, id))) throw notFound(`run ${id}`);
-    const data = await getRunRows(ctx.store, id);
+    const data = await getRunRows(ctx.store, id, { recommended: true });
     const file = await exportRun(data, format as (typeof exportFormats)[number]);
     await recordAudit(ctx.store, { user: req.auth!.user, action: 'export', detail: { run: id, format }, ip: req.ip });
     res.setHeader('Content-Type', file.mediaType);

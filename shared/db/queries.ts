@@ -123,10 +123,11 @@ export async function resolveRunRef(store: Store, ref: string | number): Promise
 }
 
 /**
- * Every result of a run, in point order then method order; each row says whether its
- * method is the point's recommended one where the run has per-point summaries (0004).
+ * Every result of a run, in point order then method order. With `recommended` (the
+ * exports), each row also says whether its method is the point's recommended one, where
+ * the run has per-point summaries (migrations/0004_point_summaries.ts).
  */
-export async function getRunRows(store: Store, runId: number): Promise<{ run: RunInfo; rows: ExportRow[] }> {
+export async function getRunRows(store: Store, runId: number, options: { recommended?: boolean } = {}): Promise<{ run: RunInfo; rows: ExportRow[] }> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
   const raw = await store.db
@@ -150,7 +151,7 @@ export async function getRunRows(store: Store, runId: number): Promise<{ run: Ru
       lastPoint = r.point_idx;
     }
     const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
-    if (r.summarized !== null) row.recommended = r.recommended === r.method;
+    if (options.recommended && r.summarized !== null) row.recommended = r.recommended === r.method;
     rows.push(row);
   }
   return { run, rows };
