@@ -1,6 +1,6 @@
 // Design answers, pure parts (shared/design): targets, bands, the summary across methods.
 import { describe, expect, it } from 'vitest';
-import { compilePointDesigner, evaluateWithFactor, factorRule, isRangeFlag, solveTargetValue, type DesignSpec } from '../shared/design/index.js';
+import { compilePointDesigner, evaluateWithFactor, factorRule, isRangeFlag, solveTargetNear, solveTargetValue, type DesignSpec } from '../shared/design/index.js';
 import { getMethod } from '../shared/physics/catalogue.js';
 import { compileSolver, solvePoint, type SolvePlan } from '../shared/physics/engine.js';
 import type { Inputs } from '../shared/physics/types.js';
@@ -66,6 +66,17 @@ describe('targets', () => {
     }
     const one = solveTargetValue((x) => x * x, 2, [0.5, 3]);
     expect(one.status === 'solved' && !one.severalRoots && Math.abs(one.x - Math.SQRT2) < 1e-9 * Math.SQRT2).toBe(true);
+  });
+
+  it('a band sample’s local solve finds the root the full scan finds (monotone output)', () => {
+    const h = (x: number) => 10 * Math.sqrt(x) + 2 * x;
+    for (const [value, x0] of [[30, 3], [30, 9], [100, 2], [12, 40]]) {
+      const full = solveTargetValue(h, value, [0.1, 50]);
+      const near = solveTargetNear(h, value, [0.1, 50], x0);
+      expect(full.status).toBe('solved');
+      if (full.status === 'solved') expect(Math.abs(near! - full.x) / full.x).toBeLessThan(2e-7);
+    }
+    expect(solveTargetNear(h, 1e4, [0.1, 50], 3)).toBeUndefined();
   });
 });
 

@@ -21,7 +21,7 @@ import type { Flag, Inputs, Outputs } from '../physics/types.js';
 import { evaluateWithFactor, factorRule, uncoveredOutputs, type MethodEvaluator } from './method-factor.js';
 import { BAND_INCOMPLETE, BANDED_OUTPUTS, bandInputsOnly, highName, lowName } from './names.js';
 import { normalQuantile, sortedQuantile, Z95 } from './normal.js';
-import { solveTargetValue } from './target.js';
+import { solveTargetNear, solveTargetValue } from './target.js';
 import type { DesignSpec, DesignTarget, InputTolerance } from './types.js';
 
 /** Standard normal draws of one point: one per tolerance (file order) and one for F, per sample. */
@@ -136,22 +136,25 @@ export function targetBands(evaluate: MethodEvaluator, point: Inputs, solved: Re
   if (uncoveredOutputs(rule, solved.outputs).includes(target.output)) flags.push(bandInputsOnly(target.adjust));
   const values = collect([target.adjust]);
   let incomplete = false;
-  const solveFor = (inputs: Inputs, F: number) => {
-    const s = solveTargetValue(
-      (x) => evaluateWithFactor(evaluate, { ...inputs, [target.adjust]: x }, F, rule).outputs[target.output],
-      target.value,
-      target.within,
-    );
+  const output = (inputs: Inputs, F: number) => (x: number) => evaluateWithFactor(evaluate, { ...inputs, [target.adjust]: x }, F, rule).outputs[target.output];
+  // The band's ends (no tolerances) to the target's own 1e-9; Monte Carlo samples near x0.
+  const solveExact = (inputs: Inputs, F: number) => {
+    const s = solveTargetValue(output(inputs, F), target.value, target.within);
     if (s.status === 'solved') values.get(target.adjust)!.push(s.x);
+    else incomplete = true;
+  };
+  const solveSample = (inputs: Inputs, F: number) => {
+    const x = solveTargetNear(output(inputs, F), target.value, target.within, x0);
+    if (x !== undefined) values.get(target.adjust)!.push(x);
     else incomplete = true;
   };
   const exact = draws.draws.length === 0;
   if (exact) {
-    for (const F of [1 - fraction, 1 + fraction]) if (F > 0) solveFor(point, F);
+    for (const F of [1 - fraction, 1 + fraction]) if (F > 0) solveExact(point, F);
   } else {
     for (const draw of draws.draws) {
       const F = factorOf(fraction, draw[draw.length - 1]);
-      if (F > 0) solveFor(sampleInputs(point, spec, draw), F);
+      if (F > 0) solveSample(sampleInputs(point, spec, draw), F);
       else incomplete = true;
     }
   }

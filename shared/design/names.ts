@@ -25,8 +25,8 @@ export const NO_APPLICABLE_METHOD = 'no-applicable-method';
 
 /**
  * Whether a flag says the method does not hold (or gave no answer) at the point: a range
- * flag `out-of-range:…`, `domain-error`, `not-converged`, `separation`, `non-finite:…`,
- * or a target it cannot meet. Other flags (`target-several-roots`, `band-…`) leave it applicable.
+ * flag `out-of-range:…`, `entry-region`, `domain-error`, `not-converged`, `separation`,
+ * `non-finite:…`, or a target it cannot meet. Other flags (`target-several-roots`, `band-…`) leave it applicable.
  */
 export function isRangeFlag(flag: string): boolean {
   return (
@@ -35,6 +35,8 @@ export function isRangeFlag(flag: string): boolean {
     flag === 'domain-error' ||
     flag === 'not-converged' ||
     flag === 'separation' ||
+    // A fully developed form used in a tube too short for it (issue 9's entry-region flag).
+    flag === 'entry-region' ||
     flag === TARGET_NOT_REACHED
   );
 }

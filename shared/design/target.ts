@@ -39,6 +39,35 @@ export function solveTargetValue(output: (x: number) => number | undefined, valu
   return r.status === 'converged' ? { status: 'solved', x: r.x, severalRoots } : { status: 'not-converged' };
 }
 
+/** Relative tolerance of a band sample's root: far below the spread of the samples. */
+export const SAMPLE_REL_TOL = 1e-7;
+
+/**
+ * The root for one Monte Carlo sample of a band, which lies near the nominal root x0:
+ * first a bracket of x0 ÷× 1.25, then ÷× 2, each clipped to `within`, then the full scan.
+ * On a monotone output it is the same root `solveTargetValue` finds, at a third of the cost.
+ */
+export function solveTargetNear(output: (x: number) => number | undefined, value: number, within: readonly [number, number], x0: number): number | undefined {
+  const f = (x: number) => {
+    const y = output(x);
+    return y === undefined ? NaN : y - value;
+  };
+  if (x0 > 0) {
+    for (const factor of [1.25, 2]) {
+      const lo = Math.max(within[0], x0 / factor);
+      const hi = Math.min(within[1], x0 * factor);
+      const flo = f(lo);
+      const fhi = f(hi);
+      if (Number.isFinite(flo) && Number.isFinite(fhi) && Math.sign(flo) !== Math.sign(fhi)) {
+        const r = brent(f, lo, hi, { relTol: SAMPLE_REL_TOL });
+        if (r.status === 'converged') return r.x;
+      }
+    }
+  }
+  const s = solveTargetValue(output, value, within);
+  return s.status === 'solved' ? s.x : undefined;
+}
+
 /**
  * A method's result row for a target at one point: solved input in `inputs` and (under
  * its own name) in `outputs`, the method's outputs and flags at that input; or, when the
