@@ -57,6 +57,13 @@ describe('targets', () => {
     }
   });
 
+  it('a method with no number anywhere in the interval says why beside target-not-reached', () => {
+    const plan: SolvePlan = { configuration: 'pipe', methods: ['gnielinski'] };
+    const { rows } = compilePointDesigner(plan, ['gnielinski'], { tolerances: {}, target: { output: 'Nu', value: 50, adjust: 'Re', within: [100, 900] } })({ Pr: 5 }, 0);
+    expect(rows[0].flags).toEqual(['target-not-reached', 'domain-error']);
+    expect(rows[0].outputs).toEqual({});
+  });
+
   it('takes the smallest of several roots and says so', () => {
     const s = solveTargetValue((x) => (x - 1.1) * (x - 3), 0, [0, 4]);
     expect(s.status).toBe('solved');

@@ -84,8 +84,13 @@ export function targetRow(method: string, evaluate: (inputs: Inputs) => ResultRo
   }
   if (solution.status === 'not-converged') return { method, inputs: point, outputs: {}, flags: ['not-converged'] };
   const outputs: Outputs = {};
-  // No finite value anywhere in the interval: the method gives no number there at all.
-  if (Number.isFinite(solution.min)) outputs[minName(target.output)] = solution.min;
-  if (Number.isFinite(solution.max)) outputs[maxName(target.output)] = solution.max;
-  return { method, inputs: point, outputs, flags: [TARGET_NOT_REACHED] };
+  if (Number.isFinite(solution.min) && Number.isFinite(solution.max)) {
+    outputs[minName(target.output)] = solution.min;
+    outputs[maxName(target.output)] = solution.max;
+    return { method, inputs: point, outputs, flags: [TARGET_NOT_REACHED] };
+  }
+  // No value anywhere in the interval: the method's own flags at the low end say why
+  // (e.g. domain-error: Gnielinski below Re = 1000).
+  const why = evaluate(at(target.within[0])).flags.filter((f) => f !== TARGET_NOT_REACHED);
+  return { method, inputs: point, outputs, flags: [TARGET_NOT_REACHED, ...why] };
 }
