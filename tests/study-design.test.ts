@@ -69,7 +69,7 @@ describe('target, tolerances and uncertainty', () => {
     );
     expect(ds).toEqual([
       "11:11 'hh' is not an output of configuration 'cylinder' (its methods give Nu, and from the dimensional engine h, q, heat_rate, pressure_drop, surface_temperature, outlet_temperature, …)",
-      "13:11 'colour' is not a numeric input of configuration 'cylinder' (its inputs: velocity, diameter, length, surface_temperature, fluid_temperature, heat_flux, pressure, characteristic_length, Re, Pr)",
+      expect.stringMatching(/^13:11 'colour' is not a numeric input of configuration 'cylinder' \(its inputs: velocity, diameter, length, .*Re, Pr\)$/),
       "16:13 diameter: '0.1 kg' has the wrong dimension: expected a value convertible to m (diameter: cylinder, sphere or tube diameter)",
       "17:3 tolerance on 'colour', which is not an input of this study (inputs: diameter, fluid_temperature, surface_temperature, velocity)",
       '18:13 velocity: a tolerance is a half-width: expected a value ≥ 0, got "-1 m/s"',
