@@ -142,6 +142,21 @@ describe('bands', () => {
     expect(outputs.heat_rate).toBeCloseTo(1000 * (1 - Math.exp(-NTU * 1.2)), 9);
   });
 
+  it('internal flow with a heat flux: the outlet and heat rate stay, the wall moves by q″/(F·h) above the bulk', () => {
+    const plan: SolvePlan = { configuration: 'pipe', methods: ['gnielinski'], fluid: 'water' };
+    const point = { diameter: 0.02, velocity: 0.5, fluid_temperature: 293.15, heat_flux: 20000, length: 2 };
+    const [row] = compilePointDesigner(plan, ['gnielinski'], banded)(point, 0).rows;
+    const u = getMethod('pipe', 'gnielinski').uncertainty.fraction;
+    expect(row.flags).toEqual([]);
+    expect(row.outputs.outlet_temperature_low).toBe(row.outputs.outlet_temperature);
+    expect(row.outputs.heat_rate_high).toBe(row.outputs.heat_rate);
+    const Tb = row.outputs.mean_bulk_temperature;
+    // The engine's wall: the bulk plus q″/h (checked here, then the band from it).
+    expect(row.outputs.surface_temperature - Tb).toBeCloseTo(20000 / row.outputs.h, 9);
+    expect(row.outputs.surface_temperature_high).toBeCloseTo(Tb + 20000 / ((1 - u) * row.outputs.h), 9);
+    expect(row.outputs.surface_temperature_low).toBeCloseTo(Tb + 20000 / ((1 + u) * row.outputs.h), 9);
+  });
+
   const withTolerance = (t: number): DesignSpec => ({ tolerances: { velocity: { relative: t } }, uncertainty: { samples: 400, seed: 7 } });
 
   function bandsOver(plan: SolvePlan, method: string, point: Inputs, tolerances: number[], h = 'h'): number[][] {

@@ -15,6 +15,9 @@
 //   memory), so with θ = (T_s − T_out)/(T_s − T_in) the outlet becomes T_s − (T_s − T_in)·θ^F
 //   and heat_rate and q scale by (1 − θ^F)/(1 − θ). Properties stay at the nominal mean
 //   bulk temperature (their change with the outlet is second order).
+// - Internal flow with a heat flux given: the balance T_out = T_in + q″PL/(ṁc_p) does not
+//   involve h, so q, heat_rate and the outlet stay; the wall sits q″/h above the bulk, so
+//   the (mean) surface temperature becomes T_b + (T_s − T_b)/F (T_b: mean_bulk_temperature).
 //
 // A banded output that no rule covers in a row (e.g. a temperature solved from a power
 // with radiation) is listed in `uncovered`: its band then holds the input tolerances only
@@ -32,15 +35,18 @@ const HEAT = ['q', 'heat_rate'];
 const num = (inputs: Inputs, name: string) => (typeof inputs[name] === 'number' ? (inputs[name] as number) : undefined);
 
 /** Which rule carries F to the row's heat and temperature outputs. */
-export type FactorRule = 'surface-temperature' | 'heat-flux' | 'energy-balance' | 'none';
+export type FactorRule = 'surface-temperature' | 'heat-flux' | 'energy-balance' | 'internal-heat-flux' | 'none';
 
 export function factorRule(inputs: Inputs, nominal: Outputs): FactorRule {
   const Ts = num(inputs, 'surface_temperature');
+  const flux = num(inputs, 'heat_flux') !== undefined;
   if (nominal.outlet_temperature !== undefined) {
-    return Ts !== undefined && num(inputs, 'fluid_temperature') !== undefined ? 'energy-balance' : 'none';
+    if (Ts !== undefined) return num(inputs, 'fluid_temperature') !== undefined ? 'energy-balance' : 'none';
+    return flux && nominal.mean_bulk_temperature !== undefined ? 'internal-heat-flux' : 'none';
   }
   if (Ts !== undefined) return 'surface-temperature';
-  if (num(inputs, 'heat_flux') !== undefined) return 'heat-flux';
+  // With radiation the flux is shared with εσ(T_s⁴ − T_sur⁴): q″/F is no longer equivalent.
+  if (flux && !(num(inputs, 'emissivity')! > 0)) return 'heat-flux';
   return 'none';
 }
 
@@ -50,6 +56,7 @@ export function uncoveredOutputs(rule: FactorRule, nominal: Outputs): string[] {
   if (rule === 'surface-temperature') HEAT.forEach((n) => covered.add(n));
   if (rule === 'heat-flux') [...HEAT, 'surface_temperature'].forEach((n) => covered.add(n));
   if (rule === 'energy-balance') [...HEAT, 'outlet_temperature'].forEach((n) => covered.add(n));
+  if (rule === 'internal-heat-flux') [...HEAT, 'outlet_temperature', 'surface_temperature'].forEach((n) => covered.add(n));
   return BANDED_OUTPUTS.filter((n) => nominal[n] !== undefined && !covered.has(n));
 }
 
@@ -76,6 +83,9 @@ export function evaluateWithFactor(evaluate: MethodEvaluator, inputs: Inputs, fa
       const ratio = (1 - thetaF) / (1 - theta);
       for (const n of HEAT) if (out[n] !== undefined) out[n] *= ratio;
     }
+  } else if (rule === 'internal-heat-flux' && out.surface_temperature !== undefined) {
+    const Tb = out.mean_bulk_temperature;
+    out.surface_temperature = Tb + (out.surface_temperature - Tb) / factor;
   }
   return { outputs: out, flags: row.flags };
 }
