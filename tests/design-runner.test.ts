@@ -6,7 +6,7 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { closeStore, getPointRows, getPointSummary, getRecommendationCounts, getRunRows, openStore, type Store } from '../shared/db/index.js';
+import { closeStore, getPointRows, getPointSummaryFacts, getRecommendationCounts, getRunRows, openStore, type Store } from '../shared/db/index.js';
 import { compilePointDesigner, isRangeFlag } from '../shared/design/index.js';
 import { exportRun } from '../shared/export/index.js';
 import { prepareStudy, runStudy, type PreparedStudy } from '../shared/runner/index.js';
@@ -94,17 +94,18 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
       expect(a.rows.map((r) => ({ method: r.method, outputs: r.outputs, flags: r.flags }))).toEqual(expected);
       // Summaries: one per point, the same for both runs, and the recommended method never has a range flag.
       for (let i = 0; i < points.length; i++) {
-        const s1 = await getPointSummary(store, one.id, i);
-        const s3 = await getPointSummary(store, three.id, i);
+        const s1 = await getPointSummaryFacts(store, one.id, i);
+        const s3 = await getPointSummaryFacts(store, three.id, i);
         expect(s1).toBeDefined();
         expect(s3).toEqual(s1);
-        expect(s1).toEqual(designer(points[i], i).summary);
+        const { applicable, spread, spread_of, recommended } = designer(points[i], i).summary;
+        expect(s1).toEqual({ applicable, spread, spread_of, recommended });
         const stored = (await getPointRows(store, one.id, i))!;
         if (s1!.recommended !== null) {
           const row = stored.rows.find((r) => r.method === s1!.recommended)!;
           expect(row.flags.filter(isRangeFlag)).toEqual([]);
         } else {
-          expect(s1!.flags).toEqual(['no-applicable-method']);
+          expect(s1!.applicable).toEqual([]);
         }
       }
       const counts = await getRecommendationCounts(store, one.id);
@@ -113,6 +114,23 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
       expect(await getRecommendationCounts(store, three.id)).toEqual(counts);
     });
   }
+
+  it('counts a summary range once its batch is stored, and an overlapping range (a resumed batch cut differently) once', async () => {
+    const p = prepare(BANDED, 'counts.yaml');
+    const run = await runStudy(store, p, { workers: 1, batchSize: 4 });
+    const before = await getRecommendationCounts(store, run.id);
+    expect(before.points).toBe(13);
+    const [first] = await store.db.selectFrom('point_summaries').selectAll().where('run_id', '=', run.id).orderBy('first_idx').execute();
+    const { encodeSummaries } = await import('../shared/design/stored-summaries.js');
+    const { decodeSummary } = await import('../shared/design/stored-summaries.js');
+    const ids = p.methods.map((m) => m.id);
+    // Points 1…3 again, as a resume might write them after a kill, starting at point 1.
+    const again = encodeSummaries([1, 2, 3], [1, 2, 3].map((i) => decodeSummary(first.facts, first.first_idx, i, ids)), ids);
+    await store.db.insertInto('point_summaries').values({ run_id: run.id, first_idx: 1, end_idx: 4, facts: again[0].facts, counts: again[0].counts }).execute();
+    // A range whose batch never committed (points 13…15 do not exist).
+    await store.db.insertInto('point_summaries').values({ run_id: run.id, first_idx: 13, end_idx: 16, facts: again[0].facts, counts: again[0].counts }).execute();
+    expect(await getRecommendationCounts(store, run.id)).toEqual(before);
+  });
 
   it('stores solved inputs and bands as outputs, and exports carry a recommended column', async () => {
     const p = prepare(TARGET, 'target.yaml');

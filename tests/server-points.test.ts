@@ -4,7 +4,9 @@ import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { getPointSummary } from '../shared/db/index.js';
+import { getPointSummaryFacts } from '../shared/db/index.js';
+import { explainSummary } from '../shared/design/index.js';
+import { getMethod } from '../shared/physics/catalogue.js';
 import { prepareStudy, runStudy } from '../shared/runner/index.js';
 import { loadStudyFile } from '../shared/study/index.js';
 import { startTestServer, type Client, type TestServer } from './helpers/server.js';
@@ -49,7 +51,8 @@ describe('GET /api/runs/:id/points/:point', () => {
     expect(gnielinski.outputs.Nu_low).toBeCloseTo(gnielinski.outputs.Nu * 0.9, 10);
     expect(gnielinski.outputs.Nu_high).toBeCloseTo(gnielinski.outputs.Nu * 1.1, 10);
     expect(gnielinski.recommended).toBe(true);
-    expect(body.summary).toEqual(await getPointSummary(s.store, runId, 2));
+    const fractions = body.rows.map((r: { method: string }) => ({ id: r.method, fraction: getMethod('pipe', r.method).uncertainty.fraction }));
+    expect(body.summary).toEqual(explainSummary((await getPointSummaryFacts(s.store, runId, 2))!, fractions, body.rows));
     expect(body.summary.recommended).toBe('gnielinski');
     expect(body.summary_source).toBe('stored');
     expect(body.rows.find((r: { method: string }) => r.method === 'laminar-developed').flags).toContain('out-of-range:Re');
@@ -63,7 +66,7 @@ describe('GET /api/runs/:id/points/:point', () => {
   });
 
   it('computes the summary for a run stored without summaries', async () => {
-    await s.store.db.deleteFrom('point_summaries').where('run_id', '=', runId).where('point_idx', '=', 2).execute();
+    await s.store.db.deleteFrom('point_summaries').where('run_id', '=', runId).execute();
     const { body } = await viewer.json('GET', `/api/runs/${runId}/points/2`);
     expect(body.summary_source).toBe('computed');
     expect(body.summary.recommended).toBe('gnielinski');

@@ -11,9 +11,9 @@
 // from an older Filmsweep) gets it computed from its rows (spread over Nu).
 import { Router } from 'express';
 import { z } from 'zod';
-import { getPointRows, getPointSummary } from '../../shared/db/point-summaries.js';
+import { getPointRows, getPointSummaryFacts } from '../../shared/db/point-summaries.js';
 import { getDashboardRun } from '../../shared/db/studies.js';
-import { summarizePoint } from '../../shared/design/summary.js';
+import { explainSummary, summarizePoint } from '../../shared/design/summary.js';
 import { getMethod } from '../../shared/physics/catalogue.js';
 import { InputError, type MethodInfo } from '../../shared/physics/types.js';
 import type { AppContext } from '../context.js';
@@ -42,9 +42,9 @@ export function pointsRouter(ctx: AppContext): Router {
     const stored = await getPointRows(ctx.store, id, point);
     if (!stored) throw notFound(`point ${point} of run ${id}`);
     const infos = stored.rows.map((row) => methodInfo(run.configuration, row.method));
-    const saved = await getPointSummary(ctx.store, id, point);
-    const summary =
-      saved ?? summarizePoint(stored.rows, stored.rows.map((row, i) => ({ id: row.method, fraction: infos[i]?.uncertainty.fraction ?? Infinity })));
+    const uncertainties = stored.rows.map((row, i) => ({ id: row.method, fraction: infos[i]?.uncertainty.fraction ?? Infinity }));
+    const saved = await getPointSummaryFacts(ctx.store, id, point);
+    const summary = saved ? explainSummary(saved, uncertainties, stored.rows) : summarizePoint(stored.rows, uncertainties);
     res.json({
       run: { id: run.id, study: run.study, configuration: run.configuration },
       point,

@@ -1,77 +1,59 @@
 // Per-point design summaries in the store (migrations/0004_point_summaries.ts): written
 // by the runner beside each batch, read by `show`, the exports and the API's point view.
-import type { PointSummary } from '../design/types.js';
+import { decodeRecommended, decodeSummary, type StoredSummaryRange } from '../design/stored-summaries.js';
+import type { SummaryFacts } from '../design/summary.js';
 import type { ResultRow } from '../physics/engine.js';
 import type { Inputs, Outputs } from '../physics/types.js';
 import type { BatchWriter, EncodedBatch, WrittenCounts } from './batch-writer.js';
-import { jsonTextSql, type Statement } from './dialect.js';
+import { sql } from 'kysely';
+import { jsonTextSql } from './dialect.js';
 import type { Store } from './store.js';
 
-/** A computed batch with the summary of each of its points (parallel to `points`). */
+/** A computed batch with its points' summaries, encoded by the worker (one entry per run of consecutive points). */
 export interface SummarizedBatch extends EncodedBatch {
-  summaries?: PointSummary[];
-}
-
-/** Rows per INSERT: 8 parameters each, far below SQLite's and PostgreSQL's limits. */
-const ROWS_PER_STATEMENT = 500;
-
-function insertStatements(runId: number, points: readonly number[], summaries: readonly PointSummary[]): Statement[] {
-  const statements: Statement[] = [];
-  for (let start = 0; start < points.length; start += ROWS_PER_STATEMENT) {
-    const end = Math.min(points.length, start + ROWS_PER_STATEMENT);
-    const params: unknown[] = [];
-    const rows: string[] = [];
-    for (let i = start; i < end; i++) {
-      const s = summaries[i];
-      rows.push('(?, ?, ?, ?, ?, ?, ?, ?)');
-      params.push(runId, points[i], s.recommended, JSON.stringify(s.applicable), s.spread, s.spread_of, s.reason, JSON.stringify(s.flags));
-    }
-    statements.push({
-      sql: `insert into point_summaries (run_id, point_idx, recommended, applicable, spread, spread_of, reason, flags) values ${rows.join(', ')} on conflict do nothing`,
-      params,
-    });
-  }
-  return statements;
+  summaries?: StoredSummaryRange[];
 }
 
 /**
- * The store's batch writer with the points' summaries written first, in their own
- * transaction: a point is never stored without its summary, and a batch written twice
- * (a retried queue job, a resume) changes nothing the second time (on conflict do nothing).
+ * The store's batch writer with the batch's summaries written first, in their own
+ * transaction (a row or two per batch): a point is never stored without its summary, and
+ * a batch written twice (a retried queue job, a resume) adds no second row for a range
+ * that starts at the same point (on conflict do nothing).
  */
 export function withPointSummaries(store: Store, runId: number, writer: BatchWriter): { write(batch: SummarizedBatch): Promise<WrittenCounts> } {
   return {
     async write(batch) {
-      const { summaries } = batch;
-      if (summaries?.length) {
-        if (summaries.length !== batch.points.length) throw new Error(`batch of ${batch.points.length} points has ${summaries.length} summaries`);
-        await store.dialect.atomic(insertStatements(runId, batch.points, summaries));
+      if (batch.summaries?.length) {
+        await store.dialect.atomic(
+          batch.summaries.map((r) => ({
+            sql: 'insert into point_summaries (run_id, first_idx, end_idx, facts, counts) values (?, ?, ?, ?, ?) on conflict do nothing',
+            params: [runId, r.first, r.end, r.facts, r.counts],
+          })),
+        );
       }
       return writer.write(batch);
     },
   };
 }
 
-function toSummary(r: { recommended: string | null; applicable: string; spread: number | null; spread_of: string | null; reason: string; flags: string }): PointSummary {
-  return {
-    applicable: JSON.parse(r.applicable) as string[],
-    spread: r.spread === null ? null : Number(r.spread),
-    spread_of: r.spread_of,
-    recommended: r.recommended,
-    reason: r.reason,
-    flags: JSON.parse(r.flags) as string[],
-  };
+async function methodIdsOf(store: Store, runId: number): Promise<string[] | undefined> {
+  const run = await store.db.selectFrom('runs').select('methods').where('id', '=', runId).executeTakeFirst();
+  return run && (JSON.parse(run.methods) as { id: string }[]).map((m) => m.id);
 }
 
-/** The stored summary of one point of a run (undefined: none, e.g. a run pushed from elsewhere). */
-export async function getPointSummary(store: Store, runId: number, pointIdx: number): Promise<PointSummary | undefined> {
-  const r = await store.db
+/** The stored facts of one point's summary (undefined: none, e.g. a run pushed from elsewhere); word them with explainSummary. */
+export async function getPointSummaryFacts(store: Store, runId: number, pointIdx: number): Promise<SummaryFacts | undefined> {
+  const row = await store.db
     .selectFrom('point_summaries')
-    .select(['recommended', 'applicable', 'spread', 'spread_of', 'reason', 'flags'])
+    .select(['first_idx', 'facts'])
     .where('run_id', '=', runId)
-    .where('point_idx', '=', pointIdx)
+    .where('first_idx', '<=', pointIdx)
+    .where('end_idx', '>', pointIdx)
+    .orderBy('first_idx', 'desc')
+    .limit(1)
     .executeTakeFirst();
-  return r && toSummary(r);
+  const methodIds = row && (await methodIdsOf(store, runId));
+  return row && methodIds && decodeSummary(row.facts, row.first_idx, pointIdx, methodIds);
 }
 
 export interface RecommendationCounts {
@@ -83,30 +65,47 @@ export interface RecommendationCounts {
   none: number;
 }
 
-/** How often each method was recommended over a run's stored points. */
+/**
+ * How often each method was recommended over a run's stored points. A range counts once
+ * its last point is stored (a batch commits whole); a range overlapping an earlier one (a
+ * resumed batch cut differently) counts only its new points.
+ */
 export async function getRecommendationCounts(store: Store, runId: number): Promise<RecommendationCounts> {
+  const methodIds = (await methodIdsOf(store, runId)) ?? [];
   const rows = await store.db
     .selectFrom('point_summaries as s')
-    .innerJoin('points as p', (j) => j.onRef('p.run_id', '=', 's.run_id').onRef('p.idx', '=', 's.point_idx'))
-    .select('s.recommended')
-    .select((eb) => eb.fn.countAll<number>().as('n'))
+    .select(['s.first_idx', 's.end_idx', 's.counts', 's.facts'])
     .where('s.run_id', '=', runId)
-    .groupBy('s.recommended')
+    .where(sql<boolean>`exists (select 1 from points p where p.run_id = s.run_id and p.idx = s.end_idx - 1)`)
+    .orderBy('s.first_idx')
     .execute();
   const out: RecommendationCounts = { points: 0, byMethod: {}, none: 0 };
-  for (const r of rows) {
-    const n = Number(r.n);
+  const add = (key: string, n: number) => {
     out.points += n;
-    if (r.recommended === null) out.none += n;
-    else out.byMethod[r.recommended] = n;
+    if (key === 'none') out.none += n;
+    else out.byMethod[methodIds[Number(key)] ?? key] = (out.byMethod[methodIds[Number(key)] ?? key] ?? 0) + n;
+  };
+  let covered = 0;
+  for (const r of rows) {
+    if (r.first_idx >= covered) {
+      for (const [key, n] of Object.entries(JSON.parse(r.counts) as Record<string, number>)) add(key, n);
+    } else if (r.end_idx > covered) {
+      const recommended = new Map<number, number | null>();
+      decodeRecommended(r.facts, r.first_idx, recommended);
+      for (const [idx, m] of recommended) if (idx >= covered) add(m === null ? 'none' : String(m), 1);
+    }
+    covered = Math.max(covered, r.end_idx);
   }
   return out;
 }
 
 /** Point index → recommended method (null: none applies), for the exports' `recommended` column. */
 export async function getRecommendedByPoint(store: Store, runId: number): Promise<Map<number, string | null>> {
-  const rows = await store.db.selectFrom('point_summaries').select(['point_idx', 'recommended']).where('run_id', '=', runId).execute();
-  return new Map(rows.map((r) => [r.point_idx, r.recommended]));
+  const methodIds = (await methodIdsOf(store, runId)) ?? [];
+  const rows = await store.db.selectFrom('point_summaries').select(['first_idx', 'facts']).where('run_id', '=', runId).orderBy('first_idx').execute();
+  const byIndex = new Map<number, number | null>();
+  for (const r of rows) decodeRecommended(r.facts, r.first_idx, byIndex);
+  return new Map([...byIndex].map(([idx, m]) => [idx, m === null ? null : methodIds[m]]));
 }
 
 export interface StoredPoint {

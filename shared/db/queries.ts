@@ -7,6 +7,7 @@ import { jsonNumberSql, jsonTextSql } from './dialect.js';
 import type { Store } from './store.js';
 import type { RunInfo } from '../export/run-info.js';
 import type { ExportRow } from '../export/types.js';
+import { getRecommendedByPoint } from './point-summaries.js';
 
 /** A run as exports and the API show it (one definition, shared with the web app). */
 export type { RunInfo };
@@ -133,8 +134,7 @@ export async function getRunRows(store: Store, runId: number, options: { recomme
   const raw = await store.db
     .selectFrom('results as r')
     .innerJoin('points as p', (j) => j.onRef('p.run_id', '=', 'r.run_id').onRef('p.idx', '=', 'r.point_idx'))
-    .leftJoin('point_summaries as s', (j) => j.onRef('s.run_id', '=', 'r.run_id').onRef('s.point_idx', '=', 'r.point_idx'))
-    .select(['r.point_idx', 'r.method', 'r.flags', 's.point_idx as summarized', 's.recommended'])
+    .select(['r.point_idx', 'r.method', 'r.flags'])
     .select(jsonTextSql(store.db, 'p.inputs').as('inputs'))
     .select(jsonTextSql(store.db, 'r.outputs').as('outputs'))
     .where('r.run_id', '=', runId)
@@ -142,6 +142,7 @@ export async function getRunRows(store: Store, runId: number, options: { recomme
     .orderBy('r.method_idx')
     .execute();
   const rows: ExportRow[] = [];
+  const recommended = options.recommended ? await getRecommendedByPoint(store, runId) : undefined;
   let lastPoint = -1;
   let inputs: Inputs = {};
   for (const r of raw) {
@@ -151,7 +152,8 @@ export async function getRunRows(store: Store, runId: number, options: { recomme
       lastPoint = r.point_idx;
     }
     const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
-    if (options.recommended && r.summarized !== null) row.recommended = r.recommended === r.method;
+    const best = recommended?.get(r.point_idx);
+    if (best !== undefined) row.recommended = best === r.method;
     rows.push(row);
   }
   return { run, rows };

@@ -193,16 +193,13 @@ export interface ResultCachesTable {
   built_at: string;
 }
 
-/** migrations/0004_point_summaries.ts: one design summary per point (shared/design/summary.ts). */
+/** migrations/0004_point_summaries.ts: design summaries, one row per run of consecutive points (shared/design/stored-summaries.ts). */
 export interface PointSummariesTable {
   run_id: number;
-  point_idx: number;
-  recommended: string | null;
-  /** JSON array of method ids. */
-  applicable: string;
-  spread: number | null;
-  spread_of: string | null;
-  reason: string;
-  /** JSON array of flags. */
-  flags: string;
+  first_idx: number;
+  end_idx: number;
+  /** JSON columns of the range's summaries. */
+  facts: string;
+  /** JSON `{"<method index>": points, "none": points}`. */
+  counts: string;
 }

@@ -6,5 +6,5 @@ export { normalQuantile, sortedQuantile, Z95 } from './normal.js';
 export { evaluateWithFactor, factorRule, uncoveredOutputs, type FactorRule, type MethodEvaluator } from './method-factor.js';
 export { solveTargetNear, solveTargetValue, targetRow, SAMPLE_REL_TOL, TARGET_REL_TOL, SCAN_STEPS, type TargetSolution } from './target.js';
 export { drawPoint, forwardBands, targetBands, type PointDraws } from './bands.js';
-export { summarizePoint, type MethodUncertainty } from './summary.js';
+export { explainSummary, summarizePoint, summaryFacts, type MethodUncertainty, type SummaryFacts } from './summary.js';
 export { compilePointDesigner, type DesignedPoint, type PointDesigner } from './point.js';

@@ -6,14 +6,17 @@ import { compileSolver, type ResultRow, type SolvePlan } from '../physics/engine
 import type { Inputs } from '../physics/types.js';
 import { drawPoint, forwardBands, targetBands } from './bands.js';
 import type { MethodEvaluator } from './method-factor.js';
-import { summarizePoint, type MethodUncertainty } from './summary.js';
+import { explainSummary, summaryFacts, type MethodUncertainty, type SummaryFacts } from './summary.js';
 import { targetRow } from './target.js';
 import type { DesignSpec, PointSummary } from './types.js';
 
 export interface DesignedPoint {
   /** One row per method, in `methodIds` order. */
   rows: ResultRow[];
-  summary: PointSummary;
+  /** The summary across methods: its facts (what the store keeps) … */
+  facts: SummaryFacts;
+  /** … and in words (built when read). */
+  readonly summary: PointSummary;
 }
 
 export type PointDesigner = (point: Inputs, index: number) => DesignedPoint;
@@ -27,12 +30,20 @@ export function compilePointDesigner(plan: SolvePlan, methodIds: readonly string
   const all = compileSolver({ ...plan, methods: [...methodIds] }, { strict: false });
   const uncertainties: MethodUncertainty[] = methodIds.map((id) => ({ id, fraction: getMethod(plan.configuration, id).uncertainty.fraction }));
   const adjust = design?.target?.adjust;
+  const fractions = uncertainties.map((u) => u.fraction);
+  const designed = (rows: ResultRow[]): DesignedPoint => {
+    const facts = summaryFacts(rows, fractions, adjust);
+    return {
+      rows,
+      facts,
+      get summary() {
+        return explainSummary(facts, uncertainties, rows);
+      },
+    };
+  };
   const needsMethods = design !== undefined && (design.target !== undefined || design.uncertainty !== undefined);
   if (!needsMethods) {
-    return (point) => {
-      const rows = all(point);
-      return { rows, summary: summarizePoint(rows, uncertainties, adjust) };
-    };
+    return (point) => designed(all(point));
   }
   const evaluators: MethodEvaluator[] = methodIds.map((id) => {
     const solve = compileSolver({ ...plan, methods: [id] }, { strict: false });
@@ -50,6 +61,6 @@ export function compilePointDesigner(plan: SolvePlan, methodIds: readonly string
         : forwardBands(evaluate, point, row, fraction, design, draws);
       return { ...row, outputs: { ...row.outputs, ...band.outputs }, flags: [...row.flags, ...band.flags] };
     });
-    return { rows, summary: summarizePoint(rows, uncertainties, adjust) };
+    return designed(rows);
   };
 }

@@ -20,40 +20,66 @@ const percent = (fraction: number) => `±${Number((fraction * 100).toPrecision(3
  */
 export function summarizePoint(rows: readonly ResultRow[], methods: readonly MethodUncertainty[], adjust?: string): PointSummary {
   const fractionOf = new Map(methods.map((m) => [m.id, m.fraction]));
-  const applicable = rows.filter((r) => !r.flags.some(isRangeFlag));
-  // Nu where the applicable methods give a mean value, else the local Nu_x: never a mix.
-  const spreadOf = adjust ?? (applicable.some((r) => r.outputs.Nu !== undefined) ? 'Nu' : applicable.some((r) => r.outputs.Nu_x !== undefined) ? 'Nu_x' : null);
-  const values = spreadOf === null ? [] : applicable.map((r) => r.outputs[spreadOf]).filter((v) => Number.isFinite(v) && v > 0);
-  const spread = values.length ? Math.max(...values) / Math.min(...values) - 1 : null;
+  return explainSummary(summaryFacts(rows, rows.map((r) => fractionOf.get(r.method) ?? Infinity), adjust), methods, rows);
+}
 
-  if (applicable.length === 0) {
-    const why = rows.map((r) => `${r.method} (${r.flags.filter(isRangeFlag).join(', ')})`).join('; ');
-    return {
-      applicable: [],
-      spread: null,
-      spread_of: null,
-      recommended: null,
-      reason: `no method's validity ranges hold at this point: ${why}`,
-      flags: [NO_APPLICABLE_METHOD],
-    };
+/**
+ * The summary's facts alone (what the workers compute for every point of every run, so
+ * kept to plain loops): `fractions[i]` is the stated uncertainty of `rows[i]`'s method.
+ */
+export function summaryFacts(rows: readonly ResultRow[], fractions: readonly number[], adjust?: string): SummaryFacts {
+  const applicable: string[] = [];
+  let best = -1;
+  let anyNu = false;
+  let anyNux = false;
+  for (let i = 0; i < rows.length; i++) {
+    const r = rows[i];
+    let holds = true;
+    for (const f of r.flags) if (isRangeFlag(f)) holds = false;
+    if (!holds) continue;
+    applicable.push(r.method);
+    if (best < 0 || fractions[i] < fractions[best]) best = i;
+    if (r.outputs.Nu !== undefined) anyNu = true;
+    else if (r.outputs.Nu_x !== undefined) anyNux = true;
   }
-  let best = applicable[0];
-  for (const r of applicable) if ((fractionOf.get(r.method) ?? Infinity) < (fractionOf.get(best.method) ?? Infinity)) best = r;
+  // Nu where the applicable methods give a mean value, else the local Nu_x: never a mix.
+  const spreadOf = adjust ?? (anyNu ? 'Nu' : anyNux ? 'Nu_x' : null);
+  let lo = Infinity;
+  let hi = -Infinity;
+  if (spreadOf !== null) {
+    for (let i = 0; i < rows.length; i++) {
+      const v = rows[i].outputs[spreadOf];
+      if (!(v > 0) || !Number.isFinite(v) || !applicable.includes(rows[i].method)) continue;
+      if (v < lo) lo = v;
+      if (v > hi) hi = v;
+    }
+  }
+  const spread = hi >= lo ? hi / lo - 1 : null;
+  return { applicable, spread, spread_of: spread === null ? null : spreadOf, recommended: best < 0 ? null : rows[best].method };
+}
+
+/** What the store keeps of a summary: the facts, without their wording. */
+export type SummaryFacts = Pick<PointSummary, 'applicable' | 'spread' | 'spread_of' | 'recommended'>;
+
+/**
+ * The summary in words (reason, flags) from its facts. `rows`, when at hand, name each
+ * method's range flags where none applies.
+ */
+export function explainSummary(facts: SummaryFacts, methods: readonly MethodUncertainty[], rows?: readonly ResultRow[]): PointSummary {
+  const fractionOf = new Map(methods.map((m) => [m.id, m.fraction]));
   const stated = (id: string) => (fractionOf.has(id) ? percent(fractionOf.get(id)!) : 'not stated');
+  const { applicable, recommended } = facts;
+  if (recommended === null || applicable.length === 0) {
+    const why = rows ? `: ${rows.map((r) => `${r.method} (${r.flags.filter(isRangeFlag).join(', ')})`).join('; ')}` : '';
+    return { ...facts, applicable: [], spread: null, spread_of: null, recommended: null, reason: `no method's validity ranges hold at this point${why}`, flags: [NO_APPLICABLE_METHOD] };
+  }
   let reason: string;
   if (applicable.length === 1) {
-    reason = `the only method whose validity ranges hold at this point (stated uncertainty ${stated(best.method)})`;
+    reason = `the only method whose validity ranges hold at this point (stated uncertainty ${stated(recommended)})`;
   } else {
-    const list = applicable.map((r) => `${r.method} ${stated(r.method)}`).join(', ');
-    const tie = applicable.filter((r) => fractionOf.get(r.method) === fractionOf.get(best.method)).length > 1 ? '; a tie, settled by the order of the study\'s methods' : '';
+    const list = applicable.map((id) => `${id} ${stated(id)}`).join(', ');
+    const tie = applicable.filter((id) => fractionOf.get(id) === fractionOf.get(recommended)).length > 1 ? "; a tie, settled by the order of the study's methods" : '';
     reason = `smallest stated uncertainty among the ${applicable.length} methods whose validity ranges hold at this point: ${list}${tie}`;
   }
-  return {
-    applicable: applicable.map((r) => r.method),
-    spread,
-    spread_of: spread === null ? null : spreadOf,
-    recommended: best.method,
-    reason,
-    flags: [],
-  };
+  return { ...facts, reason, flags: [] };
 }

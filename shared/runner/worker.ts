@@ -4,7 +4,8 @@
 // already encoded as JSON, so the main thread only has to insert them.
 import { workerData } from 'piscina';
 import { compilePointDesigner } from '../design/point.js';
-import type { PointSummary } from '../design/types.js';
+import { encodeSummaries } from '../design/stored-summaries.js';
+import type { SummaryFacts } from '../design/summary.js';
 import type { Inputs, Outputs } from '../physics/types.js';
 // sweep.js directly, not the study index: the index also loads the YAML parser, zod and
 // the unit tables, which would add most of a second to every worker's start.
@@ -24,12 +25,12 @@ export default function computeBatch(task: BatchTask): ComputedBatch {
   const inputs: string[] = new Array(n);
   const outputs: string[] = new Array(n * M);
   const flags: string[] = new Array(n * M);
-  const summaries: PointSummary[] = new Array(n);
+  const summaries: SummaryFacts[] = new Array(n);
   for (let i = 0; i < n; i++) {
     const point = points[i];
     inputs[i] = JSON.stringify(point);
-    const { rows, summary } = solve(point, indices[i]);
-    summaries[i] = summary;
+    const { rows, facts } = solve(point, indices[i]);
+    summaries[i] = facts;
     if (rows.length !== M) throw new Error(`solver returned ${rows.length} rows for ${M} methods`);
     for (let m = 0; m < M; m++) {
       const row = rows[m];
@@ -41,7 +42,7 @@ export default function computeBatch(task: BatchTask): ComputedBatch {
       flags[i * M + m] = JSON.stringify(rowFlags);
     }
   }
-  return { points: indices, inputs, outputs, flags, summaries, computeMs: performance.now() - t0 };
+  return { points: indices, inputs, outputs, flags, summaries: encodeSummaries(indices, summaries, methodIds), computeMs: performance.now() - t0 };
 }
 
 // The batch's points, walking the sweep once per range: iteratePoints sets up the value
