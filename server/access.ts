@@ -38,6 +38,7 @@ export const ROUTES: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/runs/:id/results', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/chart', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/export', access: 'viewer' },
+  { method: 'GET', path: '/api/runs/:id/points/:point', access: 'viewer' },
   { method: 'POST', path: '/api/runs/:id/reference', access: 'lead' },
   { method: 'POST', path: '/api/runs/:id/resume', access: 'researcher' },
   { method: 'GET', path: '/api/compare', access: 'viewer' },

@@ -27,6 +27,7 @@ import { measurementsRouter } from './routes/measurements.js';
 import { methodsRouter } from './routes/methods.js';
 import { auditRouter, outboxRouter } from './routes/outbox.js';
 import { passwordResetRouter } from './routes/password-reset.js';
+import { pointsRouter } from './routes/points.js';
 import { runsRouter } from './routes/runs.js';
 import { sessionRouter } from './routes/session.js';
 import { studiesRouter } from './routes/studies.js';
@@ -95,6 +96,7 @@ export function createApp(options: ServerOptions): FilmsweepApp {
   api.use('/studies/:id/measurements', measurements.byStudy);
   api.use('/studies', studiesRouter(ctx));
   api.use('/measurements', measurements.byId);
+  api.use('/runs/:id/points', pointsRouter(ctx));
   api.use('/runs', runsRouter(ctx));
   api.use('/compare', compareRouter(ctx));
   api.use('/outbox', outboxRouter(ctx));

@@ -160,14 +160,14 @@ describe('refused study files, with file, line and column', () => {
     expect(lines).toEqual([
       '1:7 expected a slug: lowercase letters and digits joined by hyphens',
       expect.stringMatching(/^3:42 unknown method 'churchill-bernstein' for configuration 'pipe'; expected one of: .*gnielinski/),
-      expect.stringMatching(/^4:1 unknown key 'colour'; expected one of: name, title, configuration, methods, fluid, inputs, sweep, checks, baseline$/),
+      expect.stringMatching(/^4:1 unknown key 'colour'; expected one of: name, title, configuration, methods, fluid, inputs, sweep, target, tolerances, uncertainty, checks, baseline$/),
       expect.stringMatching(/^6:3 dimensional inputs \(diameter\) need a fluid/),
       expect.stringMatching(/^6:13 diameter: '2 kg' has the wrong dimension: expected a value convertible to m/),
       "7:7 Re: is dimensionless: give a plain number, not '1e5 m'",
       '9:19 wall_condition: expected one of: temperature, flux, got "lukewarm"',
       "10:3 unknown input 'Prandtl': no method of 'pipe' uses it",
       "14:5 'Pr' is both fixed (inputs, line 8) and swept",
-      '15:15 expected a list, {from, to, count, spacing?} or {from, to, step}',
+      '15:15 L_over_D: a range needs count (the number of values, both ends included) or step; only a latin-hypercube sweep leaves it out (samples sets the number)',
       '20:16 expected a percentage such as "3%"',
     ]);
     const file = fixture('many-errors.yaml');
@@ -181,14 +181,14 @@ describe('refused study files, with file, line and column', () => {
     ]);
     expect(at(diagnosticsOf('name: x\nsweep:\n  over:\n    Re: {from: 1, to: 2}\n'))).toEqual([
       "1:1 missing required key 'configuration': expected a configuration id such as pipe",
-      '4:9 expected a list, {from, to, count, spacing?} or {from, to, step}',
+      '4:9 Re: a range needs count (the number of values, both ends included) or step; only a latin-hypercube sweep leaves it out (samples sets the number)',
     ]);
   });
 
   it('reports unknown keys at the key, nested ones included', () => {
     expect(at(diagnosticsOf(dimensionless('inputs: {Pr: 5}\nsweep:\n  desing: zip\n  over:\n    Re: {from: 1.0e4, to: 1.0e5, cout: 5}\n')))).toEqual([
       "6:3 unknown key 'desing'; expected one of: design, seed, samples, over",
-      "8:34 unknown key 'cout'; expected a list, {from, to, count, spacing?} or {from, to, step}",
+      "8:34 unknown key 'cout'; expected one of: from, to, count, spacing",
     ]);
   });
 
@@ -317,7 +317,7 @@ describe('sweep rules before anything runs', () => {
   });
 
   it('refuses a latin hypercube without samples', () => {
-    expect(at(diagnosticsOf(dimensionless('sweep:\n  design: latin-hypercube\n  over:\n    Re: {from: 1.0e4, to: 1.0e6, count: 2, spacing: log}\n    Pr: [0.7, 5]\n')))).toEqual([
+    expect(at(diagnosticsOf(dimensionless('sweep:\n  design: latin-hypercube\n  over:\n    Re: {from: 1.0e4, to: 1.0e6, spacing: log}\n    Pr: [0.7, 5]\n')))).toEqual([
       '5:3 a latin-hypercube sweep needs samples (the number of points)',
     ]);
   });

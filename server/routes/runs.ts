@@ -144,7 +144,7 @@ export function runsRouter(ctx: AppContext): Router {
       await recordAudit(ctx.store, { user, action: 'export', detail: { run: id, format }, ip: req.ip });
       res.setHeader('Content-Type', mediaTypes[format]);
       res.attachment(`run-${id}.${format}`);
-      await writeRunExport(run, runRowSource(ctx.store, id), format, res, makeUnitLookup(runMethodSpecs({ run })));
+      await writeRunExport(run, runRowSource(ctx.store, id, { recommended: true }), format, res, makeUnitLookup(runMethodSpecs({ run })));
     } catch (e) {
       if (!res.headersSent) {
         // Nothing sent yet: an ordinary JSON error, not one labelled as the file.

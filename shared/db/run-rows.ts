@@ -5,16 +5,24 @@
 // Between slices the caller's writer yields to the event loop (better-sqlite3 answers
 // synchronously; without a yield one export would hold every other request).
 import type { RowSource } from '../export/rows.js';
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from '../export/types.js';
 import type { Inputs, Outputs } from '../physics/types.js';
 import { jsonTextSql } from './dialect.js';
+import { getRecommendedByPoint } from './point-summaries.js';
 import type { Store } from './store.js';
 
 export const RUN_ROWS_CHUNK = 1000;
 
-export function runRowSource(store: Store, runId: number, chunk = RUN_ROWS_CHUNK): RowSource {
+/**
+ * With `recommended` (the exports), each row also says whether its method is the point's
+ * recommended one, where the run has per-point summaries (one small map per run: the
+ * summaries are stored per batch, shared/db/point-summaries.ts).
+ */
+export function runRowSource(store: Store, runId: number, options: { recommended?: boolean; chunk?: number } = {}): RowSource {
+  const chunk = options.chunk ?? RUN_ROWS_CHUNK;
   return {
     async *chunks() {
+      const recommended = options.recommended ? await getRecommendedByPoint(store, runId) : undefined;
       let after: [number, number] | undefined;
       for (;;) {
         let q = store.db
@@ -30,7 +38,7 @@ export function runRowSource(store: Store, runId: number, chunk = RUN_ROWS_CHUNK
         }
         const raw = await q.orderBy('r.point_idx').orderBy('r.method_idx').limit(chunk).execute();
         if (raw.length === 0) return;
-        const rows: ResultRow[] = new Array(raw.length);
+        const rows: ExportRow[] = new Array(raw.length);
         let lastPoint = -1;
         let inputs: Inputs = {};
         for (let i = 0; i < raw.length; i++) {
@@ -40,7 +48,10 @@ export function runRowSource(store: Store, runId: number, chunk = RUN_ROWS_CHUNK
             inputs = JSON.parse(r.inputs) as Inputs;
             lastPoint = r.point_idx;
           }
-          rows[i] = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
+          const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
+          const best = recommended?.get(r.point_idx);
+          if (best !== undefined) row.recommended = best === r.method;
+          rows[i] = row;
         }
         yield rows;
         if (raw.length < chunk) return;

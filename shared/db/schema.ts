@@ -87,6 +87,7 @@ export interface Database {
   mail_outbox: MailOutboxTable;
   audit_log: AuditLogTable;
   result_caches: ResultCachesTable;
+  point_summaries: PointSummariesTable;
 }
 
 export type RunRow = Selectable<RunsTable>;
@@ -198,4 +199,15 @@ export interface ResultCachesTable {
   /** JSON `{inputs: [names], outputs: [names]}`; column i_<k> / o_<k> holds name k. */
   columns: string;
   built_at: string;
+}
+
+/** migrations/0004_point_summaries.ts: design summaries, one row per run of consecutive points (shared/design/stored-summaries.ts). */
+export interface PointSummariesTable {
+  run_id: number;
+  first_idx: number;
+  end_idx: number;
+  /** JSON columns of the range's summaries. */
+  facts: string;
+  /** JSON `{"<method index>": points, "none": points}`. */
+  counts: string;
 }

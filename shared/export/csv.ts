@@ -12,7 +12,7 @@
 // cell with `'`, so it shows as the text it is. Numbers are numbers and never prefixed
 // (`-0.5` stays `-0.5`).
 import { stringify, type Options } from 'csv-stringify/sync';
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import type { RowEncoder } from './rows.js';
 import { cellOf, plainHeader, resultColumns, type Column } from './table.js';
 import type { RunExport } from './types.js';
@@ -37,7 +37,7 @@ export function csvField(text: string): string {
 export function csvEncoder(columns: readonly Column[]): RowEncoder {
   return {
     head: () => stringify([columns.map(plainHeader)], CSV_OPTIONS),
-    rows: (chunk: readonly ResultRow[]) => (chunk.length ? stringify(chunk.map((row) => columns.map((c) => cellOf(row, c))), CSV_OPTIONS) : ''),
+    rows: (chunk: readonly ExportRow[]) => (chunk.length ? stringify(chunk.map((row) => columns.map((c) => cellOf(row, c))), CSV_OPTIONS) : ''),
     tail: () => '',
   };
 }

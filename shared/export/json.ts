@@ -3,14 +3,14 @@
 // per line keeps large runs compact yet greppable and diffable (and lets the export be
 // written row by row). Non-finite numbers (never produced by the engine) would become
 // null, as JSON.stringify does.
-import type { ResultRow } from '../physics/engine.js';
 import { CAUTION } from './caution.js';
 import type { RowEncoder } from './rows.js';
-import type { RunExport, RunInfo } from './types.js';
+import type { ExportRow, RunExport, RunInfo } from './types.js';
 
 export function jsonEncoder(run: RunInfo): RowEncoder {
   let written = 0;
-  const line = (r: ResultRow) => JSON.stringify({ method: r.method, inputs: r.inputs, outputs: r.outputs, flags: r.flags });
+  const line = (r: ExportRow) =>
+    JSON.stringify({ method: r.method, inputs: r.inputs, outputs: r.outputs, flags: r.flags, ...(r.recommended !== undefined && { recommended: r.recommended }) });
   return {
     head: () => `{\n  "caution": ${JSON.stringify(CAUTION)},\n  "run": ${JSON.stringify(run, null, 2).replace(/\n/g, '\n  ')},\n  "rows": `,
     rows: (chunk) => {

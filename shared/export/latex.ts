@@ -3,7 +3,7 @@
 // `table` floats of `rowsPerTable` rows (default 40) so each fits a page; the first
 // carries the run's facts and the caution. Written one table at a time (a continuation's
 // caption names its rows, so a table is held until it is full or the run ends).
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { CAUTION } from './caution.js';
 import type { MemoOptions } from './markdown.js';
 import { memoColumns, type MemoColumns } from './memo-columns.js';
@@ -71,9 +71,10 @@ function texHeader(c: Column): string {
   return c.unit === undefined ? label : `${label} [${latexUnit(c.unit)}]`;
 }
 
-function texCell(row: ResultRow, c: Column, figures: number): string {
+function texCell(row: ExportRow, c: Column, figures: number): string {
   if (c.kind === 'flags') return row.flags.map(escapeLatex).join(', ');
   if (c.kind === 'method') return escapeLatex(row.method);
+  if (c.kind === 'recommended') return row.recommended ? 'yes' : '';
   return texValue(c.kind === 'input' ? row.inputs[c.name] : row.outputs[c.name], figures);
 }
 

@@ -1,7 +1,7 @@
 // Markdown export: a GitHub-flavoured table ready to paste into a memo, with the run's
 // facts and the caution above it. Columns as chosen by memo-columns.ts; numbers to four
 // significant figures by default.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { CAUTION } from './caution.js';
 import { memoColumns, type MemoColumns } from './memo-columns.js';
 import { runFacts } from './run-summary.js';
@@ -43,9 +43,10 @@ function mdHeader(c: Column): string {
   return escapeMarkdown(c.unit === undefined ? c.label : `${c.label} [${c.unit}]`);
 }
 
-function mdCell(row: ResultRow, c: Column, figures: number): string {
+function mdCell(row: ExportRow, c: Column, figures: number): string {
   if (c.kind === 'flags') return row.flags.map(escapeMarkdown).join(', ');
   if (c.kind === 'method') return escapeMarkdown(row.method);
+  if (c.kind === 'recommended') return row.recommended ? 'yes' : '';
   return mdValue(c.kind === 'input' ? row.inputs[c.name] : row.outputs[c.name], figures);
 }
 

@@ -3,7 +3,7 @@
 // when the engine derived them, Nu, Nu_x, h, h_x) and the flags. Inputs that never change
 // are listed once above the table; every other column is named as left out (the CSV,
 // JSON and XLSX exports carry everything). `columns` picks the columns by name instead.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { InputError } from '../physics/types.js';
 import { ColumnCollector, type Column } from './table.js';
 import type { UnitLookup } from './units.js';
@@ -18,7 +18,7 @@ export interface MemoColumns {
   leftOut: string[];
 }
 
-export function memoColumns(rows: readonly ResultRow[], unitOf: UnitLookup, columns?: readonly string[]): MemoColumns {
+export function memoColumns(rows: readonly ExportRow[], unitOf: UnitLookup, columns?: readonly string[]): MemoColumns {
   return memoColumnsOf(new ColumnCollector().add(rows), unitOf, columns);
 }
 
@@ -38,7 +38,7 @@ export function memoColumnsOf(seen: ColumnCollector, unitOf: UnitLookup, columns
   const leftOut: string[] = [];
   const inputNames = new Set(all.filter((c) => c.kind === 'input').map((c) => c.name));
   for (const c of all) {
-    if (c.kind === 'method' || c.kind === 'flags') {
+    if (c.kind === 'method' || c.kind === 'flags' || c.kind === 'recommended') {
       shown.push(c);
     } else if (c.kind === 'input') {
       const value = seen.constantInput(c.name);

@@ -3,25 +3,25 @@
 // pump that hands slices to a format with backpressure and a turn of the event loop between.
 import type { Writable } from 'node:stream';
 import { setImmediate as nextTurn } from 'node:timers/promises';
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { ColumnCollector } from './table.js';
 
 /** Rows an export can read more than once, a slice at a time. */
 export interface RowSource {
-  chunks(): AsyncIterable<readonly ResultRow[]>;
+  chunks(): AsyncIterable<readonly ExportRow[]>;
 }
 
 /** A text format, a slice at a time: head, then rows of each slice in order, then tail. */
 export interface RowEncoder {
   head(): string;
-  rows(chunk: readonly ResultRow[]): string;
+  rows(chunk: readonly ExportRow[]): string;
   tail(): string;
 }
 
 export const MEMORY_CHUNK = 2000;
 
 /** Rows already in memory, as a source. */
-export function rowsOf(rows: readonly ResultRow[], chunk = MEMORY_CHUNK): RowSource {
+export function rowsOf(rows: readonly ExportRow[], chunk = MEMORY_CHUNK): RowSource {
   return {
     async *chunks() {
       for (let i = 0; i < rows.length; i += chunk) yield rows.slice(i, i + chunk);
@@ -66,7 +66,7 @@ export function drained(out: Writable, stallMs = STALL_TIMEOUT_MS): Promise<void
 }
 
 /** For each slice: handle it, wait for the output to take it, give the event loop a turn. */
-export async function pumpRows(source: RowSource, out: Writable, handle: (chunk: readonly ResultRow[]) => void): Promise<void> {
+export async function pumpRows(source: RowSource, out: Writable, handle: (chunk: readonly ExportRow[]) => void): Promise<void> {
   for await (const chunk of source.chunks()) {
     handle(chunk);
     await drained(out);

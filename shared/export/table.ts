@@ -1,11 +1,12 @@
 // The column model every tabular export shares: one column per input name and per output
 // name (union over rows, inputs first, each in first-seen order), framed by `method` and
-// `flags`. An output that shares its name with an input (the engine echoes `velocity`, for
+// `flags` (and `recommended`, true on the row of each point's recommended method, when the
+// run has per-point summaries). An output that shares its name with an input (the engine echoes `velocity`, for
 // example) gets its own column labelled `<name> (output)`, so nothing is merged or lost.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { displayUnit, type UnitLookup } from './units.js';
 
-export type ColumnKind = 'method' | 'input' | 'output' | 'flags';
+export type ColumnKind = 'method' | 'input' | 'output' | 'flags' | 'recommended';
 
 export interface Column {
   kind: ColumnKind;
@@ -35,9 +36,11 @@ export class ColumnCollector {
   /** Inputs of the first row and whether every later row repeats the value. */
   private readonly firstInputs = new Map<string, { value: number | boolean | string; constant: boolean }>();
   private rowCount = 0;
+  private anyRecommended = false;
 
-  add(rows: readonly ResultRow[]): this {
+  add(rows: readonly ExportRow[]): this {
     for (const row of rows) {
+      if (row.recommended !== undefined) this.anyRecommended = true;
       if (this.rowCount === 0) {
         for (const [k, v] of Object.entries(row.inputs)) if (v !== undefined) this.firstInputs.set(k, { value: v, constant: true });
       } else {
@@ -77,6 +80,7 @@ export class ColumnCollector {
       columns.push({ kind: 'output', name, label, unit: unitFor(name) });
     }
     columns.push({ kind: 'flags', name: 'flags', label: 'flags' });
+    if (this.anyRecommended) columns.push({ kind: 'recommended', name: 'recommended', label: 'recommended' });
     return columns;
   }
 }
@@ -85,7 +89,7 @@ export function sameValue(a: unknown, b: unknown): boolean {
   return a === b || (typeof a === 'number' && typeof b === 'number' && Object.is(a, b));
 }
 
-export function resultColumns(rows: readonly ResultRow[], unitOf: UnitLookup): Column[] {
+export function resultColumns(rows: readonly ExportRow[], unitOf: UnitLookup): Column[] {
   return new ColumnCollector().add(rows).columns(unitOf);
 }
 
@@ -95,7 +99,7 @@ export function plainHeader(c: Column): string {
 }
 
 /** The raw value of a row in a column; flags joined by `;` (the CSV and XLSX form). */
-export function cellOf(row: ResultRow, c: Column): CellValue {
+export function cellOf(row: ExportRow, c: Column): CellValue {
   switch (c.kind) {
     case 'method':
       return row.method;
@@ -105,5 +109,7 @@ export function cellOf(row: ResultRow, c: Column): CellValue {
       return row.outputs[c.name];
     case 'flags':
       return row.flags.join(';');
+    case 'recommended':
+      return row.recommended;
   }
 }

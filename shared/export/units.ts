@@ -23,7 +23,19 @@ export const derivedUnits: Readonly<Record<string, string>> = {
   recovery_factor: '1',
   delta99_x: '1',
   pressure_drop_coefficient: '1',
+  // Internal-flow energy balance (issue 9): named here so targets and bands can use them.
+  outlet_temperature: 'K',
+  mean_bulk_temperature: 'K',
+  surface_temperature_outlet: 'K',
+  log_mean_temperature_difference: 'K',
+  mass_flow: 'kg/s',
 };
+
+/**
+ * Suffixes the design layer (shared/design/names.ts) appends to a name: band ends and
+ * the achievable range of a target out of reach. They carry the unit of the name itself.
+ */
+const SAME_UNIT_SUFFIXES = ['_low', '_high', '_min', '_max'];
 
 /** SI unit of a name (`1` for dimensionless), or undefined when nothing declares it. */
 export type UnitLookup = (name: string) => string | undefined;
@@ -39,7 +51,13 @@ export function makeUnitLookup(methods: readonly Pick<MethodInfo, 'inputs' | 'ou
       if (!declared.has(spec.name)) declared.set(spec.name, spec.unit);
     }
   }
-  return (name) => declared.get(name) ?? table.get(name);
+  const direct = (name: string) => declared.get(name) ?? table.get(name);
+  return (name) => {
+    const unit = direct(name);
+    if (unit !== undefined) return unit;
+    const suffix = SAME_UNIT_SUFFIXES.find((s) => name.endsWith(s));
+    return suffix ? direct(name.slice(0, -suffix.length)) : undefined;
+  };
 }
 
 /** The unit as headers show it: `-` for dimensionless. */

@@ -17,6 +17,9 @@ import { sha256Hex } from './sha256.js';
 import { countPoints, entryLength, stepProblem, zipProblem, type Sweep, type SweepEntry } from './sweep.js';
 import type { LoadedStudy, Study, StudyCheck, Tolerance } from './types.js';
 import { UnitError, differenceToSI, hasUnits, isDimensional, quantityToSI, valueInUnit } from './units.js';
+import type { DesignSpec } from '../design/types.js';
+import { makeUnitLookup } from '../export/units.js';
+import { outputValueToSI, resolveDesign } from './design-blocks.js';
 import { issueMessages } from './zod-issues.js';
 
 /** Default ceiling on the number of points of one study. */
@@ -96,6 +99,9 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
   const seed = piece(sweepSchema.shape.seed, sweepRaw.seed);
   const samples = piece(sweepSchema.shape.samples, sweepRaw.samples);
   const rawOver = entriesOf(sweepRaw.over, sweepEntrySchema, piece);
+  const rawTarget = piece(shape.target, raw.target);
+  const rawTolerances = piece(shape.tolerances, raw.tolerances);
+  const rawUncertainty = piece(shape.uncertainty, raw.uncertainty);
   const rawChecks = Array.isArray(raw.checks) ? raw.checks.map((c) => piece(checkSchema, c)) : (piece(shape.checks, raw.checks) ?? []);
   // Names as written, whether or not their values are well formed.
   const fixedNames = isRecord(raw.inputs) ? Object.keys(raw.inputs) : [];
@@ -148,7 +154,7 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
       complete = false;
     }
     const entry = rawOver[key];
-    const e = entry === undefined ? undefined : convertEntry(base, key, entry, convert, methods ? specs.get(key) ?? [] : undefined, report);
+    const e = entry === undefined ? undefined : convertEntry(base, key, entry, convert, methods ? specs.get(key) ?? [] : undefined, report, design ?? 'grid', samples);
     if (e) over[key] = e;
     else sweepComplete = complete = false;
   }
@@ -157,9 +163,12 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
   const fluid = rawFluid === undefined ? undefined : convertFluid(rawFluid, report, { inputs, sweptNames });
   if (rawFluid !== undefined && fluid === undefined) complete = false;
 
-  // Names against the catalogue: unknown, missing, and whether a fluid is needed.
-  const names = [...fixedNames, ...sweptNames];
-  const pathOf = (n: string): Path => (fixedNames.includes(n) ? ['inputs', n] : ['sweep', 'over', n]);
+  // Names against the catalogue: unknown, missing, and whether a fluid is needed. A
+  // target's adjusted input is part of every point (design-blocks.ts checks its name).
+  const adjustKnown = (n: string) => (isDimensional(n) ? configurationInputs?.has(n) : specs.has(n));
+  const adjusted = rawTarget && adjustKnown(rawTarget.adjust) && !fixedNames.includes(rawTarget.adjust) && !sweptNames.includes(rawTarget.adjust) ? [rawTarget.adjust] : [];
+  const names = [...fixedNames, ...sweptNames, ...adjusted];
+  const pathOf = (n: string): Path => (fixedNames.includes(n) ? ['inputs', n] : sweptNames.includes(n) ? ['sweep', 'over', n] : ['target', 'adjust']);
   if (configurationInputs) {
     for (const n of names.filter((x) => isDimensional(x) && !configurationInputs.has(x))) {
       report(pathOf(n), `input '${n}' has no meaning for configuration '${configuration}' (its dimensional inputs: ${[...configurationInputs].join(', ')})`, true);
@@ -197,6 +206,29 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     complete = false;
   }
 
+  // Design answers: target, tolerances, uncertainty.
+  let designSpec: DesignSpec | undefined;
+  if (methods && configurationInputs && configuration !== undefined) {
+    const resolved = resolveDesign(
+      { target: rawTarget, tolerances: rawTolerances, uncertainty: rawUncertainty },
+      {
+        configuration,
+        methods,
+        configurationInputs,
+        specs,
+        fixedNames,
+        sweptNames,
+        dimensional: names.some(isDimensional),
+        report,
+        convert,
+        whereIs: (n) => (fixedNames.includes(n) ? `inputs, line ${where.find(['inputs', n], { key: true }).line}` : `sweep, line ${where.find(['sweep', 'over', n], { key: true }).line}`),
+      },
+    );
+    designSpec = resolved.design;
+    if (!resolved.ok) complete = false;
+  }
+  if ((raw.target !== undefined && !rawTarget) || (raw.tolerances !== undefined && !rawTolerances) || (raw.uncertainty !== undefined && !rawUncertainty)) complete = false;
+
   const resolvedSweep: Sweep = { design: design ?? 'grid', seed: seed ?? 1, over };
   if (samples !== undefined) resolvedSweep.samples = samples;
   if (sweepComplete && !checkSweepSize(resolvedSweep, inputs, report, options.maxPoints ?? DEFAULT_MAX_POINTS)) complete = false;
@@ -223,10 +255,23 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
       report([...base, 'method'], `method '${c.method}' is not one of this study's methods (${methods.map((m) => m.id).join(', ')})`);
       complete = false;
     }
+    const expect: Record<string, number> = {};
+    const unitOf = methods ? makeUnitLookup(methods) : () => undefined;
+    for (const [out, value] of Object.entries(c.expect)) {
+      try {
+        expect[out] = isDimensional(out) && typeof value === 'string' ? quantityToSI(out, value) : outputValueToSI(out, unitOf(out), value);
+      } catch (e) {
+        if (!(e instanceof UnitError)) throw e;
+        report([...base, 'expect', out], `${out}: ${e.message}`);
+        complete = false;
+      }
+    }
     if (method && dimensional.length === 0) {
-      // Dimensionless studies give exactly the method's outputs; dimensional ones add h, q, … (engine.ts).
+      // Dimensionless studies give exactly the method's outputs (and the design layer's
+      // bands and solved input); dimensional ones add h, q, … (engine.ts).
+      const designNames = designOutputNames(designSpec);
       for (const out of Object.keys(c.expect)) {
-        if (!method.outputs.some((o) => o.name === out)) {
+        if (!method.outputs.some((o) => o.name === out) && !designNames(out)) {
           report([...base, 'expect', out], `method '${method.id}' has no output '${out}' (outputs: ${method.outputs.map((o) => o.name).join(', ')})`, true);
           complete = false;
         }
@@ -237,7 +282,7 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
       complete = false;
     }
     const { line, column } = where.find(base);
-    checks.push({ at, method: c.method, expect: c.expect, tolerance: toleranceOf(c.tolerance), line, column });
+    checks.push({ at, method: c.method, expect, tolerance: toleranceOf(c.tolerance), line, column });
   });
 
   if (!complete || name === undefined || configuration === undefined || !methods) return undefined;
@@ -251,7 +296,15 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     sweep: resolvedSweep,
     checks,
     baseline: { tolerance: relativeOf(rawBaseline?.tolerance ?? 1e-9) },
+    ...(designSpec !== undefined && { design: designSpec }),
   };
+}
+
+/** Whether a name is one the design layer adds to rows: the solved input, or a band or range end. */
+function designOutputNames(design: DesignSpec | undefined): (name: string) => boolean {
+  return (name) =>
+    design !== undefined &&
+    ((design.target !== undefined && (name === design.target.adjust || /_(min|max)$/.test(name))) || (design.uncertainty !== undefined && /_(low|high)$/.test(name)));
 }
 
 // The methods to run: those listed, or all of the configuration. Bad ids are reported
@@ -348,6 +401,8 @@ function convertEntry(
   convert: (path: Path, name: string, value: InputValue) => InputValue | undefined,
   specs: InputSpec[] | undefined,
   report: Report,
+  design: Sweep['design'],
+  samples: number | undefined,
 ): SweepEntry | undefined {
   if (Array.isArray(entry)) {
     const values = entry.map((v, i) => convert([...base, i], name, v));
@@ -361,12 +416,23 @@ function convertEntry(
   const from = convert([...base, 'from'], name, entry.from);
   const to = convert([...base, 'to'], name, entry.to);
   if (typeof from !== 'number' || typeof to !== 'number') return undefined;
-  if ('count' in entry) {
+  if (!('step' in entry)) {
+    // A latin hypercube samples the interval: `samples` sets the number of points, so a
+    // count there would be ignored; any other design needs one.
+    if (design === 'latin-hypercube' && entry.count !== undefined) {
+      report([...base, 'count'], `${name}: a latin-hypercube sweep takes its number of points from samples; remove count`, true);
+      return undefined;
+    }
+    if (design !== 'latin-hypercube' && entry.count === undefined) {
+      report(base, `${name}: a range needs count (the number of values, both ends included) or step; only a latin-hypercube sweep leaves it out (samples sets the number)`);
+      return undefined;
+    }
     if (entry.spacing === 'log' && !(from > 0 && to > 0)) {
       report([...base, 'spacing'], `${name}: log spacing needs from and to > 0, got ${from} and ${to}`);
       return undefined;
     }
-    return { kind: 'range', from, to, count: entry.count, spacing: entry.spacing };
+    // In a latin hypercube the count only sizes the entry (the sampler uses from, to, spacing).
+    return { kind: 'range', from, to, count: entry.count ?? Math.max(2, samples ?? 2), spacing: entry.spacing };
   }
   let step: number;
   try {
