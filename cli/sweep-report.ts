@@ -1,7 +1,7 @@
 // What `run`, `check` and `resume` share around the sweep itself: Ctrl-C/SIGTERM captured,
 // progress on stderr, per finished run the summary on stdout (or one JSON document), and
 // the exit code. Loaded by those commands' actions only.
-import { getRun, getRunSummary, type Store } from '../shared/db/index.js';
+import { getRecommendationCounts, getRun, getRunSummary, type Store } from '../shared/db/index.js';
 import { parseQueueUrl } from '../shared/queue/target.js';
 import { captureInterrupts, type RunOptions, type RunOutcome } from '../shared/runner/index.js';
 import { EXIT, ExitError } from './errors.js';
@@ -60,7 +60,7 @@ export async function sweepWithReporting(
       outcomes.push(outcome);
       if (!opts.json) {
         const run = (await getRun(store, outcome.id))!;
-        process.stdout.write(runReport(run, await getRunSummary(store, outcome.id), outcome.seconds));
+        process.stdout.write(runReport(run, await getRunSummary(store, outcome.id), outcome.seconds, await getRecommendationCounts(store, outcome.id)));
       }
     }
   } finally {

@@ -77,7 +77,7 @@ describe.each(STORE_KINDS)('runs stored before run tables, on %s', (kind) => {
     await storeAsBeforeRunTables(store, today.id);
     // Roll the schema back to before 0005 (its down() keeps runs stored the older way), with a 0002 results cache in place.
     const migrator = new Migrator({ db: store.db, provider: { getMigrations: async () => migrations } });
-    const down = await migrator.migrateTo('0002_dashboard');
+    const down = await migrator.migrateTo('0004_point_summaries');
     expect(down.error).toBeUndefined();
     await store.dialect.run('create table results_cache_1 (seq integer primary key)');
     await store.dialect.run("insert into result_caches (run_id, table_name, results_count, columns, built_at) values (?, 'results_cache_1', 0, '{}', 'then')", [today.id]);

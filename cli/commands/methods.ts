@@ -16,17 +16,22 @@ export function register(program: Command) {
     .option('-c, --configuration <id>', 'only this configuration')
     .option('--json', 'print JSON: {"configurations": [...], "methods": [...]}')
     .action(async (opts: { configuration?: string; json?: boolean }) => {
+      // Each command loads its dependencies when it runs, not with every `filmsweep` start.
       const { describeMethod, methods, methodsFor, requireConfiguration } = await import('../../shared/physics/catalogue.js');
-      const { configurations } = await import('../../shared/physics/configurations.js');
+      const { configurations, describeConfiguration } = await import('../../shared/physics/configurations.js');
       const list = opts.configuration ? (requireConfiguration(opts.configuration), methodsFor(opts.configuration)) : methods;
       const confs = configurations.filter((c) => !opts.configuration || c.id === opts.configuration);
       if (opts.json) {
-        printJson({ configurations: confs, methods: list.map(describeMethod) });
+        printJson({ configurations: confs.map(describeConfiguration), methods: list.map(describeMethod) });
         return;
       }
       const out: string[] = [];
       for (const c of confs) {
+        const d = describeConfiguration(c);
         out.push(`${c.id} — ${c.title}`, `  characteristic length: ${c.lengthNote}`);
+        if (c.conventions) out.push(`  convention: ${c.conventions}`);
+        out.push(`  dimensional inputs: ${[...d.dimensionalInputs, ...d.engineInputs].join(' ')}`);
+        out.push(`  engine outputs:     ${d.engineOutputs.join(' ')}`);
         for (const m of list.filter((x) => x.configuration === c.id)) {
           out.push(`  ${m.id}  (${m.kind}, v${m.version}) ${m.title}`);
           const inputs = m.inputs.map((i) => (i.required ? i.name : `[${i.name}]`)).join(' ');

@@ -2,7 +2,8 @@
 // runs started with `run --queue` from the queue, computes them on its own worker
 // threads and writes them to the shared database. Start as many as there are machines;
 // SIGINT/SIGTERM finishes the jobs in hand first (a second signal quits at once, and
-// those jobs go back to the queue once their lock expires).
+// those jobs go back to the queue once their lock expires). At start it marks this host's
+// runs whose process died `interrupted` (shared/db/reconcile.ts), as `serve` does.
 import { InvalidArgumentError, type Command } from 'commander';
 import { DEFAULT_LOCK_DURATION_MS, DEFAULT_MAX_STALLED, DEFAULT_STALLED_INTERVAL_MS } from '../../shared/queue/defaults.js';
 import { defaultWorkers } from '../../shared/runner/environment.js';
@@ -51,11 +52,16 @@ export function register(program: Command) {
       // BullMQ (and the rest) is loaded only by the commands that use it, not by every `filmsweep` start.
       const { parseQueueUrl, startQueueWorker } = await import('../../shared/queue/index.js');
       const { closeStore, openStore, resolveDbPath } = await import('../../shared/db/index.js');
+      const { reconcileAtStart } = await import('../../shared/db/reconcile.js');
+      const { hostName, processAlive } = await import('../../shared/runner/environment.js');
       const target = parseQueueUrl(opts.queue);
       const store = await openStore(resolveDbPath(opts.db));
       const workers = opts.workers ?? defaultWorkers();
       let handle: QueueWorkerHandle;
       try {
+        const { interrupted, removed } = await reconcileAtStart(store, 'worker', hostName(), processAlive);
+        if (interrupted.length) line(`runs ${interrupted.join(', ')} had lost their process on this host: marked interrupted (resume them)`);
+        if (removed.length) line(`unfinished pushes removed: run ${removed.join(', ')}`);
         handle = await startQueueWorker({
           target,
           store,

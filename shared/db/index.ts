@@ -46,4 +46,5 @@ export * from './outbox.js';
 export * from './measurements.js';
 export * from './studies.js';
 export * from './results-query.js';
+export * from './point-summaries.js';
 export { newSecret, hashSecret } from './secrets.js';

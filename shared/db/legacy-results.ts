@@ -10,7 +10,7 @@
 // is complete, then deletes the JSON rows in steps, once no reader of this process is
 // still reading them (readingRun). It is idempotent: stopped at any point (a closed
 // server, a killed process), it starts again from the copy next time.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from '../export/types.js';
 import type { Inputs, Outputs } from '../physics/types.js';
 import { createBatchWriter } from './batch-writer.js';
 import { jsonNumberSql, jsonTextSql } from './dialect.js';
@@ -23,8 +23,11 @@ import { sql } from 'kysely';
 /** Points per step of a conversion (about 10–30 ms of work on SQLite for a two-method run). */
 const STEP_POINTS = 2000;
 
-/** Every result of a run stored in points/results, in point order then method order. */
-export async function legacyRunRows(store: Store, runId: number): Promise<ResultRow[]> {
+/**
+ * Every result of a run stored in points/results, in point order then method order; with
+ * `recommended` (point → method), each row says whether it is its point's recommended one.
+ */
+export async function legacyRunRows(store: Store, runId: number, recommended?: Map<number, string | null>): Promise<ExportRow[]> {
   const raw = await store.db
     .selectFrom('results as r')
     .innerJoin('points as p', (j) => j.onRef('p.run_id', '=', 'r.run_id').onRef('p.idx', '=', 'r.point_idx'))
@@ -35,7 +38,7 @@ export async function legacyRunRows(store: Store, runId: number): Promise<Result
     .orderBy('r.point_idx')
     .orderBy('r.method_idx')
     .execute();
-  const rows: ResultRow[] = [];
+  const rows: ExportRow[] = [];
   let lastPoint = -1;
   let inputs: Inputs = {};
   for (const r of raw) {
@@ -44,7 +47,10 @@ export async function legacyRunRows(store: Store, runId: number): Promise<Result
       inputs = JSON.parse(r.inputs) as Inputs;
       lastPoint = r.point_idx;
     }
-    rows.push({ method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] });
+    const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
+    const best = recommended?.get(r.point_idx);
+    if (best !== undefined) row.recommended = best === r.method;
+    rows.push(row);
   }
   return rows;
 }

@@ -1,5 +1,4 @@
 // Reading runs back: used by the CLI (list, show, export) and the dashboard server.
-import type { ResultRow } from '../physics/engine.js';
 import { InputError } from '../physics/types.js';
 import { legacyRunRows, legacyRunSummary, type LegacySummaryRow } from './legacy-results.js';
 import { eachStoredResult, hasRunTable, loadLayout } from './result-table.js';
@@ -8,6 +7,8 @@ import type { RunStatus } from './schema.js';
 import type { Store } from './store.js';
 import type { RunInfo } from '../export/run-info.js';
 import type { MethodSummary } from '../export/run-data.js';
+import type { ExportRow } from '../export/types.js';
+import { getRecommendedByPoint } from './point-summaries.js';
 
 /** A run as exports and the API show it, and its per-method summary (one definition each, shared with the web app). */
 export type { RunInfo, MethodSummary };
@@ -110,14 +111,22 @@ export async function resolveRunRef(store: Store, ref: string | number): Promise
   return run;
 }
 
-/** Every result of a run, in point order then method order. */
-export async function getRunRows(store: Store, runId: number): Promise<{ run: RunInfo; rows: ResultRow[] }> {
+/**
+ * Every result of a run, in point order then method order. With `recommended` (the
+ * exports), each row also says whether its method is the point's recommended one, where
+ * the run has per-point summaries (migrations/0004_point_summaries.ts).
+ */
+export async function getRunRows(store: Store, runId: number, options: { recommended?: boolean } = {}): Promise<{ run: RunInfo; rows: ExportRow[] }> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
-  if (!(await hasRunTable(store, runId))) return { run, rows: await legacyRunRows(store, runId) };
-  const rows: ResultRow[] = [];
+  const recommended = options.recommended ? await getRecommendedByPoint(store, runId) : undefined;
+  if (!(await hasRunTable(store, runId))) return { run, rows: await legacyRunRows(store, runId, recommended) };
+  const rows: ExportRow[] = [];
   await eachStoredResult(store, runId, run.methods.length, (r) => {
-    rows.push({ method: run.methods[r.method].id, inputs: r.inputs, outputs: r.outputs, flags: r.flags });
+    const row: ExportRow = { method: run.methods[r.method].id, inputs: r.inputs, outputs: r.outputs, flags: r.flags };
+    const best = recommended?.get(r.point);
+    if (best !== undefined) row.recommended = best === row.method;
+    rows.push(row);
   });
   return { run, rows };
 }

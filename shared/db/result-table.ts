@@ -126,6 +126,45 @@ function selectRows(runId: number, layout: RunLayout): string {
 /** PostgreSQL reads in pieces of this many rows (SQLite streams). */
 const PG_CHUNK = 20_000;
 
+/** Decodes raw rows (as selectRows gives them) of one run into StoredResults, sharing inputs within a point. */
+function rowDecoder(layout: RunLayout, methods: number, fn: (row: StoredResult) => void): (row: unknown[]) => void {
+  let lastPoint = -1;
+  let lastShape = -1;
+  let lastInputs: Inputs = {};
+  return (row) => {
+    const seq = Number(row[0]);
+    const shape = Number(row[1]);
+    const point = Math.floor(seq / methods);
+    const flags = row[2] === null ? [] : (JSON.parse(String(row[2])) as string[]);
+    const { inputs, outputs } = layout.decode(shape, (c) => row[3 + c]);
+    if (!(point === lastPoint && layout.sameInputs(shape, lastShape))) {
+      lastPoint = point;
+      lastShape = shape;
+      lastInputs = inputs;
+    }
+    fn({ seq, point, method: seq - point * methods, inputs: lastInputs, outputs, flags });
+  };
+}
+
+/**
+ * A run table's results in slices of at most `chunk` rows, in seq order: one short keyset
+ * query per slice, so a caller can yield to the event loop between slices.
+ */
+export async function* storedResultChunks(store: Store, runId: number, methods: number, chunk: number): AsyncGenerator<StoredResult[]> {
+  const layout = await loadLayout(store, runId);
+  const base = selectRows(runId, layout);
+  let after = -1;
+  for (;;) {
+    const rows: StoredResult[] = [];
+    const decode = rowDecoder(layout, methods, (r) => rows.push(r));
+    await store.dialect.eachRaw(`${base} where seq > ? order by seq limit ${Math.floor(chunk)}`, [after], decode);
+    if (rows.length === 0) return;
+    yield rows;
+    if (rows.length < chunk) return;
+    after = rows[rows.length - 1].seq;
+  }
+}
+
 /**
  * Calls `fn` for each result of the run's table, in seq order (point, then method), or
  * only for `seqs` (in seq order). Rows of one point share one inputs object, as the engine
@@ -139,22 +178,7 @@ export async function eachStoredResult(
   options: { layout?: RunLayout; seqs?: number[] } = {},
 ): Promise<void> {
   const layout = options.layout ?? (await loadLayout(store, runId));
-  let lastPoint = -1;
-  let lastShape = -1;
-  let lastInputs: Inputs = {};
-  const decode = (row: unknown[]) => {
-    const seq = Number(row[0]);
-    const shape = Number(row[1]);
-    const point = Math.floor(seq / methods);
-    const flags = row[2] === null ? [] : (JSON.parse(String(row[2])) as string[]);
-    const { inputs, outputs } = layout.decode(shape, (c) => row[3 + c]);
-    if (!(point === lastPoint && layout.sameInputs(shape, lastShape))) {
-      lastPoint = point;
-      lastShape = shape;
-      lastInputs = inputs;
-    }
-    fn({ seq, point, method: seq - point * methods, inputs: lastInputs, outputs, flags });
-  };
+  const decode = rowDecoder(layout, methods, fn);
   const base = selectRows(runId, layout);
   if (options.seqs) {
     if (options.seqs.length === 0) return;

@@ -48,6 +48,8 @@ export interface RunsTable {
   reference: Generated<number>;
   /** 0002_dashboard: users.id of who started it from the dashboard or pushed it; null from the CLI. */
   started_by: number | null;
+  /** 0003_security: the host a pushed run came from; null for runs computed in this database. */
+  pushed_from: Generated<string | null>;
   /** 0005_run_tables: 1 when the results are in run_results_<id>; 0 when in points/results. */
   results_table: Generated<number>;
 }
@@ -88,6 +90,8 @@ export interface Database {
   measurements: MeasurementsTable;
   mail_outbox: MailOutboxTable;
   audit_log: AuditLogTable;
+  // 0004_point_summaries
+  point_summaries: PointSummariesTable;
   // 0005_run_tables
   result_columns: ResultColumnsTable;
   result_shapes: ResultShapesTable;
@@ -122,6 +126,9 @@ export interface SessionsTable {
   csrf_token: string;
   created_at: string;
   expires_at: string;
+  /** 0003_security: client address and browser at sign-in, for the user's list of sessions. */
+  ip: Generated<string | null>;
+  user_agent: Generated<string | null>;
 }
 
 export interface ApiTokensTable {
@@ -143,6 +150,9 @@ export interface InvitesTable {
   created_at: string;
   expires_at: string;
   accepted_at: string | null;
+  /** 0003_security: set when a lead revoked the invite (it can no longer be accepted). */
+  revoked_at: Generated<string | null>;
+  revoked_by: Generated<number | null>;
 }
 
 export interface PasswordResetsTable {
@@ -225,4 +235,15 @@ export interface ResultStatsTable {
   count: number;
   minimum: number;
   maximum: number;
+}
+
+/** migrations/0004_point_summaries.ts: design summaries, one row per run of consecutive points (shared/design/stored-summaries.ts). */
+export interface PointSummariesTable {
+  run_id: number;
+  first_idx: number;
+  end_idx: number;
+  /** JSON columns of the range's summaries. */
+  facts: string;
+  /** JSON `{"<method index>": points, "none": points}`. */
+  counts: string;
 }

@@ -1,6 +1,8 @@
 // What passes between the runner and its worker threads: the data each worker starts
 // with, one batch's task, and the computed batch it sends back.
 import type { ResultBatch } from '../db/result-layout.js';
+import type { DesignSpec } from '../design/types.js';
+import type { StoredSummaryRange } from '../design/stored-summaries.js';
 import type { SolvePlan } from '../physics/engine.js';
 import type { SweepSource } from '../study/sweep.js';
 
@@ -10,6 +12,8 @@ export interface WorkerData {
   plan: SolvePlan;
   /** Method ids in the order the run stores them; the solver must return this order. */
   methodIds: string[];
+  /** The study's design answers (target, tolerances, bands), if it asks for any. */
+  design?: DesignSpec;
 }
 
 export interface BatchTask {
@@ -71,7 +75,8 @@ export class PointCursor {
   }
 }
 
-/** A computed batch and how long the computing took (for the adaptive batch size). */
+/** A computed batch with its points' design summaries, and how long the computing took (for the adaptive batch size). */
 export interface ComputedBatch extends ResultBatch {
+  summaries?: StoredSummaryRange[];
   computeMs: number;
 }

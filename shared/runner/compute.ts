@@ -1,29 +1,38 @@
-// Computing one batch: build its points from their indices, solve each with every method,
-// and encode the rows in the store's columnar form (shared/db/result-layout.ts). The
-// worker threads do this; the main thread does it too while they are still starting.
+// Computing one batch: build its points from their indices, solve each with every method
+// (with the study's design answers and each point's summary across methods), and encode
+// the rows in the store's columnar form (shared/db/result-layout.ts) and the summaries in
+// theirs (shared/design/stored-summaries.ts). The worker threads do this; the main thread
+// does it too while they are still starting.
 // result-layout.js directly, not the db index: the codec needs no database package.
 import { ResultBatchEncoder } from '../db/result-layout.js';
-import type { ResultRow } from '../physics/engine.js';
+import type { PointDesigner } from '../design/point.js';
+import { encodeSummaries } from '../design/stored-summaries.js';
+import type { SummaryFacts } from '../design/summary.js';
 import type { Inputs } from '../physics/types.js';
 // sweep.js directly, not the study index: the index also loads the YAML parser, zod and
 // the unit tables, which would add most of a second to every worker's start.
 import { iteratePoints, type SweepSource } from '../study/sweep.js';
 import type { ComputedBatch } from './batch-task.js';
 
-export function computeBatch(solve: (inputs: Inputs) => ResultRow[], sweep: SweepSource, methodIds: readonly string[], ranges: readonly number[]): ComputedBatch {
+export function computeBatch(solve: PointDesigner, sweep: SweepSource, methodIds: readonly string[], ranges: readonly number[]): ComputedBatch {
   const t0 = performance.now();
   const M = methodIds.length;
   let n = 0;
   for (let r = 0; r < ranges.length; r += 2) n += ranges[r + 1] - ranges[r];
   const encoder = new ResultBatchEncoder(M, n);
+  const indices: number[] = new Array(n);
+  const summaries: SummaryFacts[] = new Array(n);
+  let k = 0;
   // Walking the sweep once per range: iteratePoints sets up the value lists once, where
   // pointAt would redo that for every point.
   for (let r = 0; r < ranges.length; r += 2) {
     const it = iteratePoints(sweep, ranges[r]);
-    for (let i = ranges[r]; i < ranges[r + 1]; i++) {
+    for (let i = ranges[r]; i < ranges[r + 1]; i++, k++) {
       const point = it.next().value as Inputs;
       encoder.addPoint(i, point);
-      const rows = solve(point);
+      const { rows, facts } = solve(point, i);
+      indices[k] = i;
+      summaries[k] = facts;
       if (rows.length !== M) throw new Error(`solver returned ${rows.length} rows for ${M} methods`);
       for (let m = 0; m < M; m++) {
         const row = rows[m];
@@ -33,5 +42,5 @@ export function computeBatch(solve: (inputs: Inputs) => ResultRow[], sweep: Swee
       }
     }
   }
-  return { ...encoder.finish(), computeMs: performance.now() - t0 };
+  return { ...encoder.finish(), summaries: encodeSummaries(indices, summaries, methodIds), computeMs: performance.now() - t0 };
 }

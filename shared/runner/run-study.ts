@@ -5,8 +5,9 @@
 import { dirname, resolve } from 'node:path';
 import pLimit from 'p-limit';
 import { getMethod, methodsFor } from '../physics/catalogue.js';
-import { compileSolver, type ResultRow, type SolvePlan } from '../physics/engine.js';
-import { InputError, type Inputs } from '../physics/types.js';
+import { compilePointDesigner, type PointDesigner } from '../design/point.js';
+import { compileSolver, type SolvePlan } from '../physics/engine.js';
+import { InputError } from '../physics/types.js';
 import { countPoints, entryLength, loadStudyFile, parseStudy, pointAt, type LoadedStudy } from '../study/index.js';
 import {
   claimRunForResume,
@@ -21,7 +22,9 @@ import {
   type MethodVersion,
   type RunStatus,
   type Store,
+  withPointSummaries,
 } from '../db/index.js';
+import type { WorkerData } from './batch-task.js';
 import { BatchSizer } from './batches.js';
 import { defaultWorkers, gitCommit, hostName, processAlive } from './environment.js';
 import { createPool, type SweepPool } from './pool.js';
@@ -98,14 +101,35 @@ export function prepareStudy(loaded: LoadedStudy): PreparedStudy {
   const solve = compileSolver(plan, { strict: false });
   const methods = methodVersions(plan);
   const total = countPoints(study);
-  if (total > 0) solve(pointAt(study, 0));
+  if (total > 0) {
+    const first = pointAt(study, 0);
+    const target = study.design?.target;
+    if (!target) solve(first);
+    else {
+      // A target whose output no method gives (e.g. outlet_temperature outside internal
+      // flow) would flag every point: say so before the run starts.
+      const [lo, hi] = target.within;
+      const probe = lo > 0 ? Math.sqrt(lo * hi) : (lo + hi) / 2;
+      const rows = solve({ ...first, [target.adjust]: probe });
+      if (!rows.some((r) => r.outputs[target.output] !== undefined)) {
+        throw new InputError(
+          `${loaded.file}: target output '${target.output}' is given by none of the methods at the first point (${target.adjust} = ${probe}); they give ${[...new Set(rows.flatMap((r) => Object.keys(r.outputs)))].join(', ') || 'nothing (see their flags)'}`,
+        );
+      }
+    }
+  }
   return { loaded, plan, methods, total };
+}
+
+/** What every worker thread of a run starts with (local pool and queue workers alike). */
+export function workerDataOf(prepared: PreparedStudy): WorkerData {
+  const { inputs, sweep, design } = prepared.loaded.study;
+  return { sweep: { inputs, sweep }, plan: prepared.plan, methodIds: prepared.methods.map((m) => m.id), ...(design && { design }) };
 }
 
 /** The pool for a study's points (its threads start loading at once). */
 function poolFor(prepared: PreparedStudy, workers: number): SweepPool {
-  const { inputs, sweep } = prepared.loaded.study;
-  return createPool(workers, { sweep: { inputs, sweep }, plan: prepared.plan, methodIds: prepared.methods.map((m) => m.id) });
+  return createPool(workers, workerDataOf(prepared));
 }
 
 export async function runStudy(store: Store, prepared: PreparedStudy, options: RunOptions = {}): Promise<RunOutcome> {
@@ -270,14 +294,14 @@ async function computeAndWrite(
     return undefined;
   }
   const pool = given ?? poolFor(prepared, workers);
-  let writer: ReturnType<typeof createBatchWriter>;
+  let writer: ReturnType<typeof withPointSummaries>;
   try {
-    writer = createBatchWriter(store, runId, prepared.methods.map((m) => m.id));
+    writer = withPointSummaries(store, runId, createBatchWriter(store, runId, prepared.methods.map((m) => m.id)));
   } catch (e) {
     await pool.destroy();
     throw e;
   }
-  const { inputs, sweep } = prepared.loaded.study;
+  const { inputs, sweep, design } = prepared.loaded.study;
   const sizer = new BatchSizer(count, workers, options.batchSize, innermostLength(sweep));
   const inFlight = options.inFlight ?? workers * 2;
   const limit = pLimit(inFlight);
@@ -291,7 +315,7 @@ async function computeAndWrite(
   // Until the first worker has answered (starting one takes a tenth of a second or more),
   // the main thread, idle otherwise, computes and writes batches itself, with the same code.
   let workersStarted = false;
-  let solveHere: ((inputs: Inputs) => ResultRow[]) | undefined;
+  let solveHere: PointDesigner | undefined;
   const methodIds = prepared.methods.map((m) => m.id);
   const runBatch = async (ranges: number[]) => {
     if (stopped()) return;
@@ -301,7 +325,7 @@ async function computeAndWrite(
     await write(computed);
   };
   const runHere = async (ranges: number[]) => {
-    solveHere ??= compileSolver(prepared.plan, { strict: false });
+    solveHere ??= compilePointDesigner(prepared.plan, methodIds, design);
     await write(computeBatch(solveHere, { inputs, sweep }, methodIds, ranges));
     // Let the workers' answers (and signals) in before the next one.
     await new Promise((r) => setImmediate(r));

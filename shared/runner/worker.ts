@@ -4,13 +4,14 @@
 // rows already encoded in the store's columnar form, so the main thread only has to
 // insert them.
 import { workerData } from 'piscina';
-import { compileSolver } from '../physics/engine.js';
+import { compilePointDesigner } from '../design/point.js';
 import type { BatchTask, ComputedBatch, WorkerData } from './batch-task.js';
 import { computeBatch } from './compute.js';
 
-const { sweep, plan, methodIds } = workerData as WorkerData;
-// Sweeps flag a property temperature outside the fluid's range instead of stopping.
-const solve = compileSolver(plan, { strict: false });
+const { sweep, plan, methodIds, design } = workerData as WorkerData;
+// Sweeps flag a property temperature outside the fluid's range instead of stopping. The
+// designer solves the study's target and bands where it has them, and summarises each point.
+const solve = compilePointDesigner(plan, methodIds, design);
 
 export default function computeTask(task: BatchTask): ComputedBatch {
   return computeBatch(solve, sweep, methodIds, task.ranges);
