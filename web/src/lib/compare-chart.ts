@@ -3,6 +3,7 @@ import type { EChartsCoreOption } from 'echarts/core';
 import type { CompareRow } from '../api/types.js';
 import { SERIES_COLOURS, wrap } from './chart-option.js';
 import { formatNumber } from './format.js';
+import { FIGURE, FONT_SANS } from './theme.js';
 
 export function buildCompareOption(
   rows: readonly CompareRow[],
@@ -27,7 +28,7 @@ export function buildCompareOption(
   });
   const option: EChartsCoreOption = {
     animation: false,
-    textStyle: { fontFamily: '"IBM Plex Sans", system-ui, sans-serif' },
+    textStyle: { fontFamily: FONT_SANS, color: FIGURE.text },
     grid: { left: 70, right: 24, top: look.title ? 78 : 36, bottom: look.title ? 86 : 56 },
     legend: { type: 'scroll', top: look.title ? 50 : 4 },
     tooltip: { trigger: 'item', formatter: (p: { seriesName: string; value: number[] }) => `${p.seriesName}<br/>${x} = ${formatNumber(p.value[0])}<br/>Δ${output} = ${formatNumber(p.value[1], 3)} %` },
@@ -37,7 +38,7 @@ export function buildCompareOption(
   };
   if (look.title) {
     option.title = { text: look.title.text, subtext: look.title.subtext, left: 'center', top: 4, textStyle: { fontSize: 15 }, subtextStyle: { fontSize: 11 } };
-    option.graphic = [{ type: 'text', left: 16, bottom: 8, style: { text: wrap(look.title.footer, 170), fontSize: 10, fill: '#55606e', lineHeight: 13 } }];
+    option.graphic = [{ type: 'text', left: 16, bottom: 8, style: { text: wrap(look.title.footer, 170), fontSize: 10, fill: FIGURE.muted, lineHeight: 13 } }];
   }
   return option;
 }

@@ -3,9 +3,9 @@
 import { useMemo, useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
+import { usePickedRun } from '../api/compare.js';
 import { useCatalogue } from '../api/methods.js';
 import { useMeasurements, type Measurement } from '../api/measurements.js';
-import { useRun } from '../api/runs.js';
 import { useSession } from '../api/session.js';
 import { useStudy } from '../api/studies.js';
 import type { RunInfo } from '../api/types.js';
@@ -30,7 +30,7 @@ export function StudyPage() {
   const [versionId, setVersionId] = useState<number | null>(null);
   const [picked, setPicked] = useState<number[]>([]);
   const latestRun = study.data?.runs[0];
-  const latest = useRun(latestRun?.id ?? -1);
+  const latest = usePickedRun(latestRun?.id);
   const role = session.data?.user.role;
 
   const togglePick = (runId: number) =>
