@@ -139,6 +139,20 @@ export function horizontalOverflow(page: Page): Promise<number> {
   return page.evaluate('Math.max(document.documentElement.scrollWidth, document.body.scrollWidth) - document.documentElement.clientWidth') as Promise<number>;
 }
 
+/** Elements sticking out on the right (outside any box that scrolls them), for failure messages. */
+export function overflowing(page: Page): Promise<string[]> {
+  return page.evaluate(`(() => {
+    const out = [];
+    const width = document.documentElement.clientWidth;
+    const scrolls = (el) => { for (let p = el.parentElement; p; p = p.parentElement) { const o = getComputedStyle(p).overflowX; if (o === 'auto' || o === 'scroll' || o === 'hidden') return true; } return false; };
+    for (const el of document.body.querySelectorAll('*')) {
+      const r = el.getBoundingClientRect();
+      if (r.right > width + 0.5 && !scrolls(el)) out.push(el.tagName.toLowerCase() + (el.id ? '#' + el.id : '') + '.' + String(el.className).slice(0, 60) + ' right=' + Math.round(r.right));
+    }
+    return out.slice(0, 8);
+  })()`) as Promise<string[]>;
+}
+
 /** Waits until no request of the page has been in flight for `quietMs`. */
 export async function settle(page: Page, quietMs = 400): Promise<void> {
   await page.waitForLoadState('networkidle', { timeout: 20_000 }).catch(() => undefined);

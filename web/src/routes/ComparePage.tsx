@@ -36,6 +36,12 @@ const TOLERANCES = [
   { value: 1e-2, label: '1 %' },
 ];
 
+function toleranceText(t: number): string {
+  if (t === 0) return 'equal values';
+  const preset = TOLERANCES.find((p) => p.value === t);
+  return `within ${preset ? preset.label : `${formatNumber(t * 100, 3)} %`}`;
+}
+
 function Counts({ c }: { c: CompareResponse }) {
   return (
     <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_auto_auto_auto] md:grid-cols-[repeat(4,auto_auto)]" data-testid="compare-counts">
@@ -53,7 +59,7 @@ function Counts({ c }: { c: CompareResponse }) {
 
 /** What the counts mean, in words: nothing paired, nothing changed, or how much did. */
 function Verdict({ c }: { c: CompareResponse }) {
-  const on = `${c.by.join(', ')}${c.tolerance > 0 ? ` (within ${formatNumber(c.tolerance * 100, 3)} %)` : ' (equal values)'}`;
+  const on = `${c.by.join(', ')} (${toleranceText(c.tolerance)})`;
   if (c.paired === 0) {
     return (
       <div role="alert" className="rounded-[3px] border-l-[3px] border-ember-500 bg-ember-100 px-3 py-2 text-sm text-ink-900" data-testid="compare-verdict">
