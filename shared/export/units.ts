@@ -1,21 +1,12 @@
 // Which SI unit each input and output name carries, for export headers. The method's own
 // InputSpec/OutputSpec wins; then the dimensional quantities a study may give; then the
 // quantities the dimensional engine derives itself (engine.ts), which no method declares.
-import { dimensionalQuantities } from '../physics/quantities.js';
+import { dimensionalQuantities, engineInputSpecs, engineOutputSpecs } from '../physics/quantities.js';
 import type { MethodInfo } from '../physics/types.js';
 
 /** Units of what engine.ts adds to a method's outputs, and of the usual dimensionless groups. */
 export const derivedUnits: Readonly<Record<string, string>> = {
-  h: 'W/(m^2·K)',
-  h_x: 'W/(m^2·K)',
-  q: 'W/m^2',
-  heat_rate: 'W',
-  pressure_drop: 'Pa',
-  property_temperature: 'K',
-  surface_temperature: 'K',
-  adiabatic_wall_temperature: 'K',
-  velocity: 'm/s',
-  delta99: 'm',
+  ...Object.fromEntries([...engineOutputSpecs, ...engineInputSpecs].map((s) => [s.name, s.unit])),
   Re: '1',
   Pr: '1',
   Pr_s: '1',
