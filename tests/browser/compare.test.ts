@@ -64,7 +64,7 @@ describe.skipIf(!existsSync(CHROMIUM))('comparison page', { timeout: 180_000 }, 
     // The table lists the changed pairs with b's L/D beside a's.
     const table = page.getByRole('table', { name: 'Compared points' });
     await table.locator('tbody tr').first().waitFor();
-    expect(await table.locator('thead th').allTextContents()).toEqual(expect.arrayContaining(['L_over_D in b']));
+    expect(await table.locator('thead th').allTextContents()).toEqual(expect.arrayContaining(['L_over_D [-] in b', 'run a: Nu [-]', '(b − a)/|a| [%]']));
     await expect.poll(() => page.getByTestId('page-status').textContent()).toContain(`${api.changed} rows`);
     await page.getByTestId('chart').locator('svg').waitFor();
     await context.close();
@@ -82,7 +82,7 @@ describe.skipIf(!existsSync(CHROMIUM))('comparison page', { timeout: 180_000 }, 
     await page.getByLabel('show').selectOption('any');
     const table = page.getByRole('table', { name: 'Compared points' });
     await table.locator('tbody tr').first().waitFor();
-    expect(await table.locator('thead th').allTextContents()).toEqual(expect.arrayContaining(['Re in b']));
+    expect(await table.locator('thead th').allTextContents()).toEqual(expect.arrayContaining(['Re [-] in b']));
     await context.close();
   });
 

@@ -9,7 +9,7 @@ export function buildCompareOption(
   rows: readonly CompareRow[],
   x: string,
   output: string,
-  look: { xLog: boolean; title?: { text: string; subtext: string; footer: string } },
+  look: { xLog: boolean; title?: { text: string; subtext: string; footer: string }; /** Axis title of x with its unit (default: the input's name). */ xLabel?: string },
 ): EChartsCoreOption {
   const byMethod = new Map<string, [number, number][]>();
   for (const r of rows) {
@@ -32,7 +32,7 @@ export function buildCompareOption(
     grid: { left: 70, right: 24, top: look.title ? 78 : 36, bottom: look.title ? 86 : 56 },
     legend: { type: 'scroll', top: look.title ? 50 : 4 },
     tooltip: { trigger: 'item', formatter: (p: { seriesName: string; value: number[] }) => `${p.seriesName}<br/>${x} = ${formatNumber(p.value[0])}<br/>Δ${output} = ${formatNumber(p.value[1], 3)} %` },
-    xAxis: { type: look.xLog ? 'log' : 'value', name: x, nameLocation: 'middle', nameGap: 28, scale: !look.xLog, axisLabel: { formatter: (v: number) => formatNumber(v, 3) } },
+    xAxis: { type: look.xLog ? 'log' : 'value', name: look.xLabel ?? x, nameLocation: 'middle', nameGap: 28, scale: !look.xLog, axisLabel: { formatter: (v: number) => formatNumber(v, 3) } },
     yAxis: { type: 'value', name: `(b − a)/|a| of ${output}, %`, nameLocation: 'middle', nameGap: 52, axisLabel: { formatter: (v: number) => formatNumber(v, 3) } },
     series,
   };

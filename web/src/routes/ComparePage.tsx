@@ -121,9 +121,10 @@ export function ComparePage() {
   const outputs = [...new Set([...(runA.data?.columns.outputs ?? []), ...(runB.data?.columns.outputs ?? [])])];
   const configuration = runA.data?.run.configuration ?? runB.data?.run.configuration;
   const unitOf = useMemo(() => makeUnitLookup(catalogue.data?.methods.filter((m) => m.configuration === configuration) ?? []), [catalogue.data, configuration]);
+  // `Re [-]`, `velocity [m/s]` (SI, as the API sends them), as the run page labels them.
   const withUnit = (name: string) => {
     const u = unitOf(name);
-    return u === undefined || displayUnit(u) === '-' ? name : `${name} [${u}]`;
+    return u === undefined ? name : `${name} [${displayUnit(u)}]`;
   };
   const xName = x || inputs.find((n) => n === 'Re' || n === 'Ra') || inputs[0] || '';
   // Inputs in which run b's paired point differs from run a's (not paired by, or within the tolerance).
@@ -146,13 +147,14 @@ export function ComparePage() {
     ],
     [inputs.join(','), differingB.join(','), output, unitOf],
   );
-  const chartOption = useMemo(() => (forChart.data && xName ? buildCompareOption(forChart.data.rows, xName, output, { xLog }) : null), [forChart.data, xName, output, xLog]);
+  const chartOption = useMemo(() => (forChart.data && xName ? buildCompareOption(forChart.data.rows, xName, output, { xLog, xLabel: withUnit(xName) }) : null), [forChart.data, xName, output, xLog, unitOf]);
 
   const save = (type: 'svg' | 'png') => {
     if (!forChart.data) return;
     const { a: ra, b: rb } = forChart.data;
     const option = buildCompareOption(forChart.data.rows, xName, output, {
       xLog,
+      xLabel: withUnit(xName),
       title: {
         text: `Change of ${output} between run #${ra.id} and run #${rb.id}`,
         subtext: `a: run #${ra.id}, ${ra.study} v${ra.study_version} · b: run #${rb.id}, ${rb.study} v${rb.study_version} · paired by ${forChart.data.by.join(', ')}`,
