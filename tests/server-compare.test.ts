@@ -65,8 +65,15 @@ async function expectedPairs(store: Store, a: number, b: number, by: string[], t
     typeof x === 'number' && typeof y === 'number' ? Math.abs(x - y) <= tol * Math.max(Math.abs(x), Math.abs(y)) : x !== undefined && x === y;
   const used = new Set<number>();
   const pairs: Expected['pairs'] = [];
+  // Exact pairing looks b's rows up by key; a tolerance compares every pair (small runs only).
+  const keyOf = (r: { method: string; inputs: Inputs }) => (by.every((n) => r.inputs[n] !== undefined) ? JSON.stringify([r.method, ...by.map((n) => r.inputs[n])]) : undefined);
+  const byKey = new Map(rb.map((s, i) => [keyOf(s), i]));
+  byKey.delete(undefined);
   for (const r of ra) {
-    const k = rb.findIndex((s, i) => !used.has(i) && s.method === r.method && by.every((n) => same(r.inputs[n], s.inputs[n])));
+    const k =
+      tol === 0
+        ? (byKey.get(keyOf(r)) ?? -1)
+        : rb.findIndex((s, i) => !used.has(i) && s.method === r.method && by.every((n) => same(r.inputs[n], s.inputs[n])));
     if (k < 0) continue;
     used.add(k);
     const [av, bv] = [r.outputs.Nu ?? null, rb[k].outputs.Nu ?? null];
