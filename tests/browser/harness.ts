@@ -48,7 +48,7 @@ export async function ensureWebBuild(force = false) {
   }
 }
 
-const dist = (p: string) => import(pathToFileURL(path.join(repo, 'dist', p)).href);
+export const dist = (p: string) => import(pathToFileURL(path.join(repo, 'dist', p)).href);
 
 export interface Dashboard {
   base: string;
