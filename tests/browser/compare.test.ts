@@ -16,11 +16,15 @@ const nudged = v1.replace(
   'Re: [500.0000005, 1000.000002, 2000.000004, 5000.00001, 10760.00002, 20000.00004, 50000.0001, 100000.0002, 300000.0006, 1000000.002]',
 );
 
+const count = (n: number) => n.toLocaleString('en');
+
 describe.skipIf(!existsSync(CHROMIUM))('comparison page', { timeout: 180_000 }, () => {
   let d: Dashboard;
   let a: number;
   let b: number;
   let c: number;
+  /** Methods of the pipe configuration that the study runs (every one: it names none). */
+  let M: number;
 
   beforeAll(async () => {
     expect(v2).not.toBe(v1);
@@ -31,6 +35,8 @@ describe.skipIf(!existsSync(CHROMIUM))('comparison page', { timeout: 180_000 }, 
       ['tube-loop-map-nudged', nudged],
     ]);
     [a, b, c] = d.runs;
+    const [row] = await d.store.dialect.all('select methods from runs where id = ?', [a]);
+    M = JSON.parse(row.methods).length;
   }, 180_000);
 
   afterAll(async () => {
@@ -46,7 +52,7 @@ describe.skipIf(!existsSync(CHROMIUM))('comparison page', { timeout: 180_000 }, 
     // Never "nothing changed", no empty chart or table pretending there is nothing to show.
     expect(await page.getByText(/None of the|No paired point changed/).count()).toBe(0);
     expect(await page.getByRole('table', { name: 'Compared points' }).count()).toBe(0);
-    await expect.poll(() => page.getByTestId('compare-counts').textContent()).toMatch(/paired\s*0 results at 0 points.*only in a\s*300 results, 50 points.*only in b\s*330 results, 55 points/);
+    await expect.poll(() => page.getByTestId('compare-counts').textContent()).toMatch(new RegExp(`paired\\s*0 results at 0 points.*only in a\\s*${count(50 * M)} results, 50 points.*only in b\\s*${count(55 * M)} results, 55 points`));
     // The study files' diff shows what differs.
     const diff = page.getByTestId('yaml-diff');
     await diff.waitFor();
@@ -55,17 +61,17 @@ describe.skipIf(!existsSync(CHROMIUM))('comparison page', { timeout: 180_000 }, 
 
     // Untick L/D: the points pair by Re, Pr (and the unchanged fixed inputs).
     await page.getByRole('checkbox', { name: 'L_over_D' }).uncheck();
-    await expect.poll(() => verdict.textContent(), { timeout: 20_000 }).toMatch(/paired results of 300 changed Nu/);
+    await expect.poll(() => verdict.textContent(), { timeout: 20_000 }).toMatch(new RegExp(`paired results? of ${count(50 * M)} changed Nu`));
     const api = await page.evaluate(async ([x, y]) => (await (await fetch(`/api/compare?a=${x}&b=${y}&output=Nu&by=Pr,Re,heating,viscosity_ratio&pageSize=1`)).json()) as Record<string, any>, [a, b]);
-    expect(api).toMatchObject({ paired: 300, only_a: 0, only_b: 30 });
+    expect(api).toMatchObject({ paired: 50 * M, only_a: 0, only_b: 5 * M });
     const counts = (await page.getByTestId('compare-counts').textContent())!;
-    expect(counts).toMatch(new RegExp(`paired\\s*300 results at 50 points\\s*changed\\s*${api.changed}\\s*only in a\\s*0 results, 0 points\\s*only in b\\s*30 results, 5 points`));
+    expect(counts).toMatch(new RegExp(`paired\\s*${count(50 * M)} results at 50 points\\s*changed\\s*${count(api.changed)}\\s*only in a\\s*0 results, 0 points\\s*only in b\\s*${count(5 * M)} results, 5 points`));
     expect(page.url()).toContain('by=Pr%2CRe%2Cheating%2Cviscosity_ratio');
     // The table lists the changed pairs with b's L/D beside a's.
     const table = page.getByRole('table', { name: 'Compared points' });
     await table.locator('tbody tr').first().waitFor();
     expect(await table.locator('thead th').allTextContents()).toEqual(expect.arrayContaining(['L_over_D [-] in b', 'run a: Nu [-]', '(b − a)/|a| [%]']));
-    await expect.poll(() => page.getByTestId('page-status').textContent()).toContain(`${api.changed} rows`);
+    await expect.poll(() => page.getByTestId('page-status').textContent()).toContain(`${count(api.changed)} rows`);
     await page.getByTestId('chart').locator('svg').waitFor();
     await context.close();
   });
@@ -76,7 +82,7 @@ describe.skipIf(!existsSync(CHROMIUM))('comparison page', { timeout: 180_000 }, 
     const verdict = page.getByTestId('compare-verdict');
     await expect.poll(() => verdict.textContent(), { timeout: 20_000 }).toContain('Nothing paired');
     await page.getByLabel('numbers match within').selectOption({ label: '1 in 10⁶' });
-    await expect.poll(() => page.getByTestId('compare-counts').textContent(), { timeout: 20_000 }).toMatch(/paired\s*300 results at 50 points.*only in a\s*0 results.*only in b\s*0 results/);
+    await expect.poll(() => page.getByTestId('compare-counts').textContent(), { timeout: 20_000 }).toMatch(new RegExp(`paired\\s*${count(50 * M)} results at 50 points.*only in a\\s*0 results.*only in b\\s*0 results`));
     expect(await verdict.textContent()).toContain('(within 1 in 10⁶)');
     // Both Re columns: a's and b's (they differ in the last digits).
     await page.getByLabel('show').selectOption('any');
