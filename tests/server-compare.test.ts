@@ -283,7 +283,7 @@ describe.each(STORE_KINDS)('another request while two 240,000-result runs are co
     // The comparison is long enough for the measurement to mean something…
     expect(compareMs).toBeGreaterThan(500);
     // …and no other request waited for it (before: the whole comparison, 6 s on a 240,000-result pair).
-    expect(worst).toBeLessThan(Math.min(400, compareMs / 3));
+    expect(worst).toBeLessThan(Math.min(750, compareMs / 3));
     expect(latencies.length).toBeGreaterThan(3);
     expect(c.body).toMatchObject({ total: 2 * changedPoints, changed: 2 * changedPoints, paired: 240_000, only_a: 0, only_b: 0 });
   }, 120_000);
