@@ -167,9 +167,9 @@ describe('chart option', () => {
   it('plots relative differences in percent per method', () => {
     const o = buildCompareOption(
       [
-        { method: 'm1', inputs: { Re: 1e5 }, a: 100, b: 110, rel_diff: 0.1 },
-        { method: 'm1', inputs: { Re: 1e4 }, a: 50, b: 50, rel_diff: 0 },
-        { method: 'm2', inputs: { Re: 1e4 }, a: 50, b: null, rel_diff: null },
+        { method: 'm1', inputs: { Re: 1e5 }, inputs_b: { Re: 1e5 }, a: 100, b: 110, rel_diff: 0.1 },
+        { method: 'm1', inputs: { Re: 1e4 }, inputs_b: { Re: 1e4 }, a: 50, b: 50, rel_diff: 0 },
+        { method: 'm2', inputs: { Re: 1e4 }, inputs_b: { Re: 1e4 }, a: 50, b: null, rel_diff: null },
       ],
       'Re',
       'Nu',

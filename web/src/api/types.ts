@@ -72,6 +72,8 @@ export interface ChartData {
 export interface CompareRow {
   method: string;
   inputs: Record<string, number | string | boolean>;
+  /** Run b's point (differs from run a's in inputs not paired by, or within the tolerance). */
+  inputs_b: Record<string, number | string | boolean>;
   a: number | null;
   b: number | null;
   rel_diff: number | null;

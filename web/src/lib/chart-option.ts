@@ -4,10 +4,11 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import type { ChartData } from '../api/types.js';
 import { formatNumber } from './format.js';
+import { FONT_SANS, MEASURED_COLOUR as THEME_MEASURED_COLOUR, SERIES_COLOURS as THEME_SERIES_COLOURS } from './theme.js';
 
-/** Filmsweep's series colours (our own palette: ink blue, copper, moss, plum …). */
-export const SERIES_COLOURS = ['#1f4e79', '#c0602a', '#4f7a3a', '#7b3f78', '#2f8f8a', '#a8842c', '#9a3b3b', '#55606e', '#3d6fb3', '#6d8f2e'];
-export const MEASURED_COLOUR = '#111827';
+/** Filmsweep's series colours and the measured data's (the palette lives in theme.ts). */
+export const SERIES_COLOURS = THEME_SERIES_COLOURS;
+export const MEASURED_COLOUR = THEME_MEASURED_COLOUR;
 
 export interface ChartLook {
   xLog: boolean;
@@ -118,7 +119,7 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
   const top = look.title ? 78 : 36;
   const option: EChartsCoreOption = {
     animation: false,
-    textStyle: { fontFamily: '"IBM Plex Sans", system-ui, sans-serif' },
+    textStyle: { fontFamily: FONT_SANS },
     grid: { left: 70, right: look.title ? 250 : 24, top, bottom: look.title ? 86 : 56 },
     // On screen a scrolling legend above the plot; in a file every entry, in a column on the right.
     legend: look.title

@@ -14,6 +14,7 @@ import { DataTable } from '../components/DataTable.js';
 import { ExportLinks } from '../components/ExportLinks.js';
 import { ResultFilters, type FilterState } from '../components/ResultFilters.js';
 import { ResultsTable } from '../components/ResultsTable.js';
+import { ResumeButton } from '../components/ResumeButton.js';
 import { RunChart } from '../components/RunChart.js';
 import { RunProgress, StatusBadge } from '../components/StatusBadge.js';
 import { ErrorNote, Loading } from '../components/States.js';
@@ -91,6 +92,7 @@ export function RunPage() {
             </button>
           )}
           {setReference.isError && <ErrorNote error={setReference.error} />}
+          <ResumeButton run={info} />
         </div>
       </div>
 
