@@ -6,13 +6,13 @@ import { recordAudit } from '../../shared/db/audit.js';
 import { getRunDetails, getRunRows, getRunSummary, RUN_STATUSES } from '../../shared/db/index.js';
 import { getMeasurement } from '../../shared/db/measurements.js';
 import { NAME_PATTERN } from '../../shared/db/results-cache.js';
-import { chartData, getRunColumns, MAX_PAGE_SIZE, queryResults, type RangeFilter } from '../../shared/db/results-query.js';
+import { chartData, measuredOverlay } from '../../shared/db/chart-query.js';
+import { getRunColumns, MAX_PAGE_SIZE, queryResults, type RangeFilter } from '../../shared/db/results-query.js';
 import { getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
 import { exportFormats, exportRun } from '../../shared/export/index.js';
 import type { AppContext } from '../context.js';
 import { HttpError, notFound } from '../http-error.js';
 import { parse } from '../middleware/validate.js';
-import { measuredOverlay } from '../overlay.js';
 import { pushRun, pushSchema } from '../push.js';
 import { idParams } from './users.js';
 
