@@ -34,6 +34,7 @@ export const ROUTES: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/runs/:id', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/results', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/chart', access: 'viewer' },
+  { method: 'GET', path: '/api/runs/:id/chart/axes', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/export', access: 'viewer' },
   { method: 'POST', path: '/api/runs/:id/reference', access: 'lead' },
   { method: 'GET', path: '/api/compare', access: 'viewer' },

@@ -12,6 +12,10 @@ export const derivedUnits: Readonly<Record<string, string>> = {
   heat_rate: 'W',
   pressure_drop: 'Pa',
   property_temperature: 'K',
+  outlet_temperature: 'K',
+  mean_bulk_temperature: 'K',
+  log_mean_temperature_difference: 'K',
+  mass_flow: 'kg/s',
   surface_temperature: 'K',
   adiabatic_wall_temperature: 'K',
   velocity: 'm/s',
@@ -48,7 +52,21 @@ export function makeUnitLookup(methods: readonly Pick<MethodInfo, 'inputs' | 'ou
       if (!declared.has(spec.name)) declared.set(spec.name, spec.unit);
     }
   }
-  return (name) => declared.get(name) ?? table.get(name);
+  const direct = (name: string) => declared.get(name) ?? table.get(name);
+  // `h_low`/`h_high` (a band), `h_min`/`h_max` (a range) carry the unit of `h`.
+  return (name) => direct(name) ?? (BOUND_SUFFIX.test(name) ? direct(name.replace(BOUND_SUFFIX, '')) : undefined);
+}
+
+/** Suffixes of names that are bounds of another quantity and share its unit. */
+export const BOUND_SUFFIX = /_(low|high|min|max)$/;
+
+/**
+ * Whether a name is an absolute temperature (shown in °C or K by choice): its unit is K
+ * and its name, without a bound suffix, ends in `temperature`. A temperature difference
+ * (`log_mean_temperature_difference`) is K in either choice and never offset.
+ */
+export function isAbsoluteTemperature(name: string, unit: string | undefined): boolean {
+  return unit === 'K' && /temperature$/.test(name.replace(BOUND_SUFFIX, ''));
 }
 
 /** The unit as headers show it: `-` for dimensionless. */
