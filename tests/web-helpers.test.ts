@@ -12,7 +12,7 @@ import { isDecade, logTicks } from '../web/src/lib/log-axis.js';
 import { buildParityOption } from '../web/src/lib/parity-option.js';
 import { formatQuantity, labelWithUnit, makeQuantities, prettyUnit } from '../web/src/lib/units.js';
 import { buildCompareOption } from '../web/src/lib/compare-chart.js';
-import { csvHeader, guessMapping, mappingProblem, splitCsvLine } from '../web/src/lib/csv-header.js';
+import { csvHeader, guessMapping, mappingProblem, splitCsvLine, unitProblem } from '../web/src/lib/csv-header.js';
 import { diagnosticsOf, sourceLine } from '../web/src/lib/diagnostics.js';
 import { formatCount, formatNumber, formatPercent } from '../web/src/lib/format.js';
 import { chartSearch, convertBound, defaultResultQuery, filterParams, isBound, resultsSearch } from '../web/src/lib/result-query.js';
@@ -361,5 +361,24 @@ describe('chart option', () => {
     ) as { series: S[] };
     expect(o.series).toHaveLength(1);
     expect(o.series[0].data).toEqual([[1e4, 0], [1e5, 10]]);
+  });
+});
+
+describe('measurement headers in the browser', () => {
+  const q = makeQuantities([], 'degC');
+  it('finds the separator and maps names without their units', () => {
+    expect(csvHeader('velocity [m/s];fluid_temperature [degC];h [W/(m^2 K)]\n1;2;3')).toEqual(['velocity [m/s]', 'fluid_temperature [degC]', 'h [W/(m^2 K)]']);
+    expect(csvHeader('a\tb;c\td\n')).toEqual(['a', 'b;c', 'd']);
+    expect(guessMapping(['fluid_temperature [degC]', 'H [W/(m^2 K)]', 'Nu (rig)'], ['fluid_temperature', 'h', 'Nu'])).toEqual({
+      'fluid_temperature [degC]': 'fluid_temperature',
+      'H [W/(m^2 K)]': 'h',
+      'Nu (rig)': 'Nu',
+    });
+  });
+  it('warns before upload as the server will refuse', () => {
+    expect(unitProblem('fluid_temperature', 'fluid_temperature', q)).toMatch(/fluid_temperature \[degC\]/);
+    expect(unitProblem('fluid_temperature [degC]', 'fluid_temperature', q)).toBeNull();
+    expect(unitProblem('Re [m]', 'Re', q)).toMatch(/dimensionless/);
+    expect(unitProblem('Re [-]', 'Re', q)).toBeNull();
   });
 });
