@@ -293,9 +293,12 @@ export async function chartAxes(store: Store, runId: number): Promise<ChartAxes>
       ...(values.length <= 24 ? { values } : {}),
     };
   };
-  // An output wins over an input of the same name, as in the queries.
-  const inputs = src.columns.inputs.filter((n) => !src.columns.outputs.includes(n));
-  return { names: [...inputs.map((n) => facts(n, 'input')), ...src.columns.outputs.map((n) => facts(n, 'output'))], sampled_points: sampledPoints };
+  // A name the study gives (swept or fixed) is an input even where the engine echoes it
+  // among the outputs (velocity); the queries read the same value either way.
+  const given = (n: string) => Boolean(study && (n in study.sweep.over || n in study.inputs));
+  const inputs = src.columns.inputs.filter((n) => given(n) || !src.columns.outputs.includes(n));
+  const outputs = src.columns.outputs.filter((n) => !inputs.includes(n));
+  return { names: [...inputs.map((n) => facts(n, 'input')), ...outputs.map((n) => facts(n, 'output'))], sampled_points: sampledPoints };
 }
 
 async function storedStudy(store: Store, runId: number): Promise<Study | undefined> {
