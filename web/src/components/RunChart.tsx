@@ -96,8 +96,8 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
-        {axisSelect('y', 'y')}
-        {axisSelect('x', 'x')}
+        {axisSelect('y axis', 'y')}
+        {axisSelect('x axis', 'x')}
         <div>
           <label htmlFor={`${id}-by`} className="field-label">series</label>
           <select id={`${id}-by`} className="input w-auto" value={choice.by} onChange={(e) => choose({ by: e.target.value })}>
