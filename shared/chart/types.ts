@@ -97,6 +97,8 @@ export interface AxisFacts {
   max: number | null;
   /** The distinct values, ascending, when there are at most 24. */
   values?: number[];
+  /** Text values of a swept input (a choice such as `arrangement`): it can split series, not be an axis. */
+  labels?: string[];
 }
 
 export interface ChartAxes {

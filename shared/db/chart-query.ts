@@ -330,6 +330,7 @@ function studyFacts(study: Study | undefined, name: string): AxisFacts | undefin
     distinct = values.length;
   } else return undefined;
   values = [...new Set(values)].sort((a, b) => a - b);
+  const labels = entry?.kind === 'list' ? [...new Set(entry.values.filter((v) => typeof v === 'string' || typeof v === 'boolean').map(String))] : [];
   return {
     name,
     role: 'input',
@@ -338,6 +339,7 @@ function studyFacts(study: Study | undefined, name: string): AxisFacts | undefin
     min: values.length ? values[0] : null,
     max: values.length ? values[values.length - 1] : null,
     ...(values.length <= 24 && distinct <= 24 ? { values } : {}),
+    ...(labels.length ? { labels } : {}),
   };
 }
 

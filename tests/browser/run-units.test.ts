@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { hasChromium, startDashboard, type Dashboard } from '../helpers/dashboard-browser.js';
+import { hasChromium, hoverSymbol, startDashboard, tooltipOf, type Dashboard } from '../helpers/dashboard-browser.js';
 
 // An invented probe sheath in the Fernbrook field station's battery-room duct, on a
 // winter night and a summer noon.
@@ -63,12 +63,8 @@ describe.skipIf(!hasChromium)('units on the run page (Chromium)', { timeout: 180
     expect(await chartTexts(page)).toContain('h [W/(m²·K)]');
 
     // A tooltip names the point's values with their units.
-    const point = page.getByTestId('chart').locator('svg path[fill="#1f4e79"]').first();
-    await page.getByTestId('chart').scrollIntoViewIfNeeded();
-    const box = (await point.boundingBox())!;
-    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
-    const tip = page.getByTestId('chart').locator('div', { hasText: 'W/(m²·K)' }).last();
-    await expect.poll(() => tip.textContent()).toMatch(/fluid_temperature = -?[\d.,]+ °C/);
+    await hoverSymbol(page, '#1f4e79');
+    await expect.poll(() => tooltipOf(page).textContent()).toMatch(/fluid_temperature = -?[\d.,]+ °C.*h = [\d.,]+ W\/\(m²·K\)/);
     // The crosshair read-out follows the pointer, with units.
     await expect.poll(() => page.getByTestId('crosshair').textContent()).toMatch(/fluid_temperature = -?[\d.,]+ °C · h = [\d.,]+ W\/\(m²·K\)/);
 
@@ -110,7 +106,7 @@ describe.skipIf(!hasChromium)('units on the run page (Chromium)', { timeout: 180
     expect(cells.some((c) => /^\d{1,3}(,\d{3})+$/.test(c))).toBe(true);
     expect(cells.filter((c) => /^\d{5,}(\.\d+)?$/.test(c))).toEqual([]);
     const facts = await page.getByRole('region', { name: 'Run facts' }).locator('dd').evaluateAll((els) =>
-      els.map((e) => ({ text: e.textContent, ellipsis: getComputedStyle(e).textOverflow === 'ellipsis', overflow: e.scrollWidth > e.clientWidth + 1 })),
+      els.map((e) => ({ text: e.textContent, ellipsis: (globalThis as unknown as { getComputedStyle(e: unknown): { textOverflow: string } }).getComputedStyle(e).textOverflow === 'ellipsis', overflow: e.scrollWidth > e.clientWidth + 1 })),
     );
     expect(facts.length).toBeGreaterThan(4);
     for (const f of facts) expect(f, f.text ?? '').toMatchObject({ ellipsis: false, overflow: false });

@@ -112,3 +112,20 @@ export async function startDashboard(): Promise<Dashboard> {
     },
   };
 }
+
+/** The ECharts tooltip of a chart (its own absolutely placed div), not the chart's SVG text. */
+export function tooltipOf(page: Page, testId = 'chart') {
+  return page.getByTestId(testId).locator('div[style*="z-index: 9999999"]');
+}
+
+/** Hovers the centre of a drawn data symbol (an SVG path with this fill, scaled by ECharts), not a legend icon. */
+export async function hoverSymbol(page: Page, fill: string, index = 0, testId = 'chart'): Promise<number> {
+  const chart = page.getByTestId(testId);
+  await chart.scrollIntoViewIfNeeded();
+  const symbols = chart.locator(`svg path[fill="${fill}"][transform^="matrix"]`);
+  const n = await symbols.count();
+  if (n <= index) throw new Error(`no data symbol ${index} filled ${fill} (found ${n})`);
+  const box = (await symbols.nth(index).boundingBox())!;
+  await page.mouse.move(box.x + box.width / 2 + 0.5, box.y + box.height / 2 + 0.5);
+  return n;
+}

@@ -9,7 +9,7 @@ import type { Measurement } from '../api/measurements.js';
 import { useCatalogue } from '../api/methods.js';
 import { useChart, useChartAxes } from '../api/runs.js';
 import type { AxisFacts, ChartData, RunInfo } from '../api/types.js';
-import { defaultChoice, secondInputs, seriesProblem, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
+import { defaultChoice, numeric, secondInputs, seriesProblem, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
 import { exportChart, exportTitle } from '../lib/chart-export.js';
 import { autoLog, buildChartOption, hiddenOnLogAxes, type ChartLook } from '../lib/chart-option.js';
 import { formatCount, formatNumber } from '../lib/format.js';
@@ -71,7 +71,7 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
     exportChart(withTitle, type, `run-${run.id}-${data.y}-vs-${data.x}.${type}`, panels > 1 ? { width: 1400, height: 300 * Math.ceil(panels / 3) + 200 } : undefined);
   };
 
-  const names = (role: 'input' | 'output') => facts.filter((f) => f.role === role);
+  const names = (role: 'input' | 'output') => facts.filter((f) => f.role === role && numeric(f));
   const option_ = (f: AxisFacts) => (
     <option key={f.name} value={f.name}>
       {labelWithUnit(quantities(f.name))}

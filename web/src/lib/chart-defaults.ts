@@ -21,8 +21,14 @@ export interface ChartChoice {
   layout: SeriesLayout;
 }
 
+/** A numeric name whose values differ (it can be an axis). */
 export function varies(f: AxisFacts | undefined): boolean {
   return !!f && f.distinct > 1 && f.min !== null && f.max !== null && f.min < f.max;
+}
+
+/** A name with numbers (text-valued choices can split series but not be an axis). */
+export function numeric(f: AxisFacts): boolean {
+  return f.min !== null;
 }
 
 /** Decades covered (positive values), else a nominal one: log axes are the default. */
@@ -52,9 +58,9 @@ export function defaultChoice(facts: readonly AxisFacts[], regime: string | unde
   return { x, y, by: second && second.distinct <= MAX_STYLED_VALUES ? second.name : 'method', layout: 'style' };
 }
 
-/** Inputs that can split the series: swept, not x, a countable number of values. */
+/** Inputs that can split the series: swept, not x, a countable number of values (numbers or choices). */
 export function secondInputs(facts: readonly AxisFacts[], x: string): AxisFacts[] {
-  return facts.filter((f) => f.role === 'input' && f.name !== x && f.swept && varies(f) && f.distinct < 1000);
+  return facts.filter((f) => f.role === 'input' && f.name !== x && f.swept && f.distinct > 1 && f.distinct < 1000 && (varies(f) || (f.labels?.length ?? 0) > 1));
 }
 
 /**
