@@ -253,7 +253,9 @@ export async function chartAxes(store: Store, runId: number): Promise<ChartAxes>
   const src = await openSource(store, runId);
   const d = store.dialect;
   const study = await storedStudy(store, runId);
-  const points = pointSample(src.run.points_total, AXIS_SAMPLE_POINTS);
+  // A running run has written (about) its first points_done points: sample those.
+  const running = src.run.status === 'running' || src.run.status === 'queued';
+  const points = pointSample(running ? Math.min(src.run.points_total, src.run.points_done) : src.run.points_total, AXIS_SAMPLE_POINTS);
   const seen = new Map<string, { role: 'input' | 'output'; values: Set<number>; min: number; max: number; overflow: boolean }>();
   const note = (name: string, role: 'input' | 'output', v: unknown) => {
     let s = seen.get(name);
