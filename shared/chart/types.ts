@@ -66,13 +66,12 @@ export interface MeasuredOverlay {
 export interface ChartData {
   x: string;
   y: string;
-  /** Results with both x and y, before thinning. */
+  /** Results with both x and y, before thinning (estimated from the sample when `total_estimated`). */
   total: number;
+  /** True when the run was too large to count in time and `total` comes from the sample. */
+  total_estimated?: boolean;
   downsampled: boolean;
-  /**
-   * When the run is too large to read whole in time, the thinning worked from this many
-   * results, a deterministic sample of whole points (all methods of a sampled point).
-   */
+  /** When the run is too large to read whole in time: the thinning worked from this many results, a fixed sample. */
   sampled?: number;
   /** `method` or the second input the series are split by. */
   series_by: string;

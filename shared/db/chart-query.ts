@@ -21,13 +21,12 @@ export type { ChartData, ChartSeries, ChartAxes, MeasuredOverlay } from '../char
 export const MAX_CHART_POINTS = 20_000;
 export const MAX_SERIES = 100;
 /**
- * Up to this many qualifying results (or 10 × max, if larger) are read whole; above it the
- * thinning works from a deterministic sample of whole points of about that size. Reading
- * rows is what a chart request costs (about 3 µs a result on SQLite): 20,000 keeps a
- * 1,000,000-result run's chart near 100 ms, and still gives each of 2,000 drawn points
- * ten results to choose from.
+ * A run of up to this many results (or 5 × max, if larger) is read whole; a larger one
+ * through a fixed sample of about this size, looked up by key. Rows read are what a chart
+ * request costs (a few µs each on SQLite, measured by `npm run bench -- web`); 10,000
+ * still gives each of 2,000 drawn points five results to choose from.
  */
-export const SAMPLE_ROWS = 20_000;
+export const SAMPLE_ROWS = 10_000;
 const MAX_MEASURED_ROWS = 20_000;
 /** Points whose outputs the axis facts are read from. */
 const AXIS_SAMPLE_POINTS = 400;
@@ -74,25 +73,47 @@ export async function chartData(store: Store, runId: number, q: ChartQuery, opti
   const where = [...cond.sql, d.isNumber(x.sql), d.isNumber(y.sql)];
   const whereParams = [...cond.params, ...x.params, ...y.params];
 
-  // 1. The rows: all of them, or, when more than sampleRows qualify, a sample of whole
-  // points (a multiplicative hash of the point index: spread over every swept input, the
-  // same on every request and store). A small run needs no count: it is read whole.
+  // 1. The rows. A run of up to sampleRows results is read whole. A larger one is read
+  // through a fixed sample of about sampleRows results, looked up by key (no pass over the
+  // run): the count of what qualifies is then estimated from the sample (`total_estimated`);
+  // the results table counts exactly. When filters leave too little in the sample, the
+  // qualifying rows are read in one pass: all of them when few (exact count), else a
+  // hashed sample of the point index sized by the estimate.
   const methodIdx = q.methods?.length ? src.run.methods.map((_, i) => i).filter((i) => q.methods!.includes(src.run.methods[i].id)) : src.run.methods.map((_, i) => i);
-  const sampleRows = Math.max(options.sampleRows ?? SAMPLE_ROWS, 10 * max);
+  const sampleRows = Math.max(options.sampleRows ?? SAMPLE_ROWS, 5 * max);
   const select = (extra: string[]) =>
     d.all<Row>(
       `select ${m} as m, ${x.sql} as x, ${y.sql} as y, ${col(src, 'flagged')} as f, ${col(src, 'id')} as id${by ? `, ${by.sql} as v` : ''}
        from ${src.from} where ${[...where, ...extra].join(' and ')}`,
       [...x.params, ...y.params, ...(by?.params ?? []), ...whereParams],
     );
-  let total: number | undefined;
-  if (src.run.results_count > sampleRows) {
-    const [counted] = await d.all<{ n: unknown }>(`select count(*) as n from ${src.from} where ${where.join(' and ')}`, whereParams);
-    total = Number(counted.n);
+  const stored = src.run.results_count;
+  let rows: Row[];
+  let total: number;
+  let estimated = false;
+  let sampled: number | undefined;
+  if (stored <= sampleRows) {
+    rows = await select([]);
+    total = rows.length;
+  } else {
+    // Keys spread evenly over the run (golden-ratio sequence): cache rows by seq, or whole
+    // points by index off the results table. Both are integers of our own, written inline.
+    const perPoint = Math.max(1, src.run.methods.length);
+    const keys = src.cache ? spread(stored, sampleRows, 1) : spread(src.run.points_total, Math.ceil(sampleRows / perPoint), 0);
+    const looked = keys.length * (src.cache ? 1 : perPoint);
+    const inSample = await select([`${src.cache ? 'c.seq' : 'r.point_idx'} in (${keys.join(', ')})`]);
+    const estimate = Math.round((inSample.length * stored) / Math.max(1, looked));
+    if (inSample.length >= sampleRows / 4) {
+      [rows, total, estimated, sampled] = [inSample, estimate, true, inSample.length];
+    } else if (estimate <= 2 * sampleRows) {
+      rows = await select([]);
+      total = rows.length;
+    } else {
+      const fraction = Math.min(1, sampleRows / estimate);
+      rows = await select([`(${col(src, 'point')} * 2654435761) % 4294967296 < ${Math.ceil(fraction * 4294967296)}`]);
+      [total, estimated, sampled] = [Math.round(rows.length / fraction), true, rows.length];
+    }
   }
-  const sampling = total !== undefined && total > sampleRows;
-  const rows = await select(sampling ? [`(${col(src, 'point')} * 2654435761) % 4294967296 < ${Math.ceil((sampleRows / total!) * 4294967296)}`] : []);
-  total ??= rows.length;
 
   // 3. Series: per method, and per value of the second input (sorted by value).
   const groups = new Map<string, { m: number; value: number | string | boolean | null; rows: Row[] }>();
@@ -141,13 +162,14 @@ export async function chartData(store: Store, runId: number, q: ChartQuery, opti
   const absent: number[] = [];
   for (const i of methodIdx) {
     if (drawn.has(i)) continue;
-    if (sampling && (await d.all(`select 1 from ${src.from} where ${[...where, `${m} = ${i}`].join(' and ')} limit 1`, whereParams)).length) continue;
+    if (sampled !== undefined && (await d.all(`select 1 from ${src.from} where ${[...where, `${m} = ${i}`].join(' and ')} limit 1`, whereParams)).length) continue;
     absent.push(i);
   }
   const filtered = Boolean(q.filters?.length || q.flagged === 'yes' || q.flagged === 'no');
   const left_out = absent.map((i) => leftOut(src.run, src.run.methods[i].id, q.x, q.y, filtered));
   const out: ChartData = { x: q.x, y: q.y, total, downsampled, series_by: seriesBy ?? 'method', series, uncertainty, flag_details, left_out };
-  if (sampling) out.sampled = rows.length;
+  if (sampled !== undefined) out.sampled = sampled;
+  if (estimated) out.total_estimated = true;
   return out;
 }
 
@@ -349,10 +371,18 @@ const numbers = (vs: unknown[]) => vs.filter((v): v is number => typeof v === 'n
 
 /** Up to n point indexes spread over 0 … total − 1 (golden-ratio sequence, plus both ends). */
 export function pointSample(total: number, n: number): number[] {
-  if (total <= n) return Array.from({ length: Math.max(0, total) }, (_, i) => i);
+  return spread(total, n, 0);
+}
+
+/**
+ * Up to n distinct integers spread over first … first + total − 1: both ends and the
+ * golden-ratio sequence between, which never lines up with the period of a grid sweep.
+ */
+export function spread(total: number, n: number, first: number): number[] {
+  if (total <= n) return Array.from({ length: Math.max(0, total) }, (_, i) => first + i);
   const golden = (Math.sqrt(5) - 1) / 2;
-  const picked = new Set<number>([0, total - 1]);
-  for (let k = 1; picked.size < n; k++) picked.add(Math.floor(((k * golden) % 1) * total));
+  const picked = new Set<number>([first, first + total - 1]);
+  for (let k = 1; picked.size < n; k++) picked.add(first + Math.floor(((k * golden) % 1) * total));
   return [...picked].sort((a, b) => a - b);
 }
 

@@ -172,8 +172,8 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
             {pointer ? `${data!.x} = ${formatNumber(pointer.x, 4)} ${quantities(data!.x).unit} · ${data!.y} = ${formatNumber(pointer.y, 4)} ${quantities(data!.y).unit}`.replace(/ [-?](?= ·|$)/g, '') : 'Point at the chart to read x and y.'}
           </p>
           <p className="text-xs text-ink-600" data-testid="chart-note">
-            {formatCount(data!.total)} results in {formatCount(data!.series.length)} series
-            {data!.sampled ? ` · thinned for display from a fixed sample of ${formatCount(data!.sampled)} results (whole points), keeping the lowest and highest of each stretch along x; the table and exports have every result` : data!.downsampled ? ' · thinned for display (the lowest and highest of each stretch along x are kept; the table and exports have every result)' : ''}
+            {data!.total_estimated ? 'about ' : ''}{formatCount(data!.total)} results in {formatCount(data!.series.length)} series
+            {data!.sampled ? ` · drawn from a fixed sample of ${formatCount(data!.sampled)} results${data!.total_estimated ? ' (the count is estimated from it; the table counts exactly)' : ''}, keeping the lowest and highest of each stretch along x; the table and exports have every result` : data!.downsampled ? ' · thinned for display (the lowest and highest of each stretch along x are kept; the table and exports have every result)' : ''}
             {hidden ? ` · ${formatCount(hidden)} points with zero or negative values cannot be shown on log axes` : ''}
             {data!.flag_details.length || data!.series.some((s) => s.points.some((p) => p[2])) ? ' · ◇ hollow diamonds are flagged results (outside a validity range; point at one to see which)' : ''}
             {band && !(option!.series as { stack?: string }[]).some((x) => x.stack) ? ' · the band needs one value per x: split the series by the other swept input' : ''}
