@@ -39,8 +39,8 @@ describe('valid study files', () => {
     expect(s.name).toBe('glycol-heater-tube');
     expect(s.title).toBe('Heater tube, 30 % glycol');
     expect(s.methods).toEqual(['gnielinski', 'dittus-boelter']);
-    expect(s.fluid).toBe('water');
-    expect(s.inputs).toEqual({ diameter: 0.025, length: 2, fluid_temperature: 330 });
+    expect(s.fluid).toBeUndefined();
+    expect(s.inputs).toEqual({ L_over_D: 80 });
     expect(s.sweep).toEqual({
       design: 'grid',
       seed: 7,
@@ -56,9 +56,9 @@ describe('valid study files', () => {
     expect(s.baseline).toEqual({ tolerance: 1e-9 });
     expect(countPoints(s)).toBe(63);
     const points = expandPoints(s);
-    expect(points[0]).toEqual({ diameter: 0.025, length: 2, fluid_temperature: 330, Re: 1e4, Pr: 0.7 });
+    expect(points[0]).toEqual({ L_over_D: 80, Re: 1e4, Pr: 0.7 });
     expect(points[1].Pr).toBe(5); // last key fastest
-    expect(points[31]).toEqual({ diameter: 0.025, length: 2, fluid_temperature: 330, Re: 1e5, Pr: 5 });
+    expect(points[31]).toEqual({ L_over_D: 80, Re: 1e5, Pr: 5 });
   });
 
   it('converts units in fixed inputs, steps and lists to SI', () => {
@@ -134,6 +134,18 @@ describe('valid study files', () => {
 });
 
 describe('refused study files, with file, line and column', () => {
+  it('refuses over-specified points, naming both inputs at the second one', () => {
+    const text = 'name: t\nconfiguration: pipe\nmethods: [gnielinski]\nfluid: water\ninputs:\n  diameter: 25 mm\n  velocity: 1 m/s\n  fluid_temperature: 40 degC\n  surface_temperature: 60 degC\nsweep:\n  over:\n    Re: [1.0e4, 2.0e4]\n    Pr: [5]\n';
+    expect(at(diagnosticsOf(text))).toEqual([
+      "12:5 over-specified point: 'velocity' and 'Re' both given; Re follows from the velocity and the fluid",
+      "13:5 over-specified point: a fluid and 'Pr' both given; Pr follows from the fluid at its property temperature",
+    ]);
+    const flux = 'name: t\nconfiguration: vertical-plate\nmethods: [churchill-chu]\nfluid: air\ninputs:\n  height: 0.5 m\n  fluid_temperature: 20 degC\n  surface_temperature: 40 degC\n  heat_flux: 100 W/m^2\n';
+    expect(at(diagnosticsOf(flux))).toEqual([
+      "8:3 over-specified point: 'heat_flux' and 'surface_temperature' both given; with a heat flux the surface temperature is solved for (give one of them)",
+    ]);
+  });
+
   it('reports every problem of a file at once', () => {
     const e = (() => {
       try {

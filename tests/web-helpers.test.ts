@@ -134,6 +134,8 @@ describe('units on screen', () => {
     expect(formatQuantity(inC('surface_temperature'), 401.55)).toBe('128.4 °C');
     expect(formatQuantity(inK('surface_temperature'), 401.55)).toBe('401.6 K');
     expect(inC('surface_temperature_high').unit).toBe('°C');
+    expect(inC('surface_temperature_outlet').unit).toBe('°C');
+    expect(inC('outlet_temperature').unit).toBe('°C');
     expect(labelWithUnit(inC('log_mean_temperature_difference'))).toBe('log_mean_temperature_difference [K]');
     expect(inC('log_mean_temperature_difference').toDisplay(12)).toBe(12);
     expect(formatQuantity(inC('Re'), 40000)).toBe('40,000');

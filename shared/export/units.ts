@@ -1,25 +1,12 @@
 // Which SI unit each input and output name carries, for export headers. The method's own
 // InputSpec/OutputSpec wins; then the dimensional quantities a study may give; then the
 // quantities the dimensional engine derives itself (engine.ts), which no method declares.
-import { dimensionalQuantities } from '../physics/quantities.js';
+import { dimensionalQuantities, engineInputSpecs, engineOutputSpecs } from '../physics/quantities.js';
 import type { MethodInfo } from '../physics/types.js';
 
 /** Units of what engine.ts adds to a method's outputs, and of the usual dimensionless groups. */
 export const derivedUnits: Readonly<Record<string, string>> = {
-  h: 'W/(m^2·K)',
-  h_x: 'W/(m^2·K)',
-  q: 'W/m^2',
-  heat_rate: 'W',
-  pressure_drop: 'Pa',
-  property_temperature: 'K',
-  outlet_temperature: 'K',
-  mean_bulk_temperature: 'K',
-  log_mean_temperature_difference: 'K',
-  mass_flow: 'kg/s',
-  surface_temperature: 'K',
-  adiabatic_wall_temperature: 'K',
-  velocity: 'm/s',
-  delta99: 'm',
+  ...Object.fromEntries([...engineOutputSpecs, ...engineInputSpecs].map((s) => [s.name, s.unit])),
   Re: '1',
   Pr: '1',
   Pr_s: '1',
@@ -62,11 +49,12 @@ export const BOUND_SUFFIX = /_(low|high|min|max)$/;
 
 /**
  * Whether a name is an absolute temperature (shown in °C or K by choice): its unit is K
- * and its name, without a bound suffix, ends in `temperature`. A temperature difference
- * (`log_mean_temperature_difference`) is K in either choice and never offset.
+ * and its name says temperature (`outlet_temperature`, `surface_temperature_outlet`). A
+ * temperature difference (`log_mean_temperature_difference`) is K in either choice and
+ * never offset.
  */
 export function isAbsoluteTemperature(name: string, unit: string | undefined): boolean {
-  return unit === 'K' && /temperature$/.test(name.replace(BOUND_SUFFIX, ''));
+  return unit === 'K' && /temperature/.test(name) && !/difference/.test(name);
 }
 
 /** The unit as headers show it: `-` for dimensionless. */

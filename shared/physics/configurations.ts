@@ -19,6 +19,8 @@ export interface Configuration {
   propertyRule: PropertyRule;
   /** Dimensional inputs this configuration understands (besides the common ones). */
   dimensionalInputs: string[];
+  /** What the dimensional inputs mean here, where it differs from the obvious (shown by `methods`). */
+  conventions?: string;
 }
 
 export const configurations: Configuration[] = [
@@ -66,6 +68,10 @@ export const configurations: Configuration[] = [
     lengthNote: 'tube diameter D; Re uses the maximum velocity V_max',
     propertyRule: 'free-stream',
     dimensionalInputs: ['velocity', 'diameter', 'length'],
+    conventions:
+      'fluid_temperature is the INLET temperature of the stream; velocity is the approach velocity upstream of the bank. ' +
+      'The outlet follows from the bank energy balance T_s − T_o = (T_s − T_i)·exp(−πDNh̄/(ρVN_T S_T c_p)) with N = rows·tubes_per_row; ' +
+      'properties at the mean of inlet and outlet, Pr_s at the surface. length is the tube length (heat_rate needs it).',
   },
   {
     id: 'pipe',
@@ -75,6 +81,11 @@ export const configurations: Configuration[] = [
     lengthNote: 'inner diameter D',
     propertyRule: 'bulk',
     dimensionalInputs: ['velocity', 'flow_rate', 'diameter', 'length'],
+    conventions:
+      'fluid_temperature is the INLET bulk temperature. With surface_temperature (uniform wall temperature) the outlet follows from ' +
+      'T_s − T_out = (T_s − T_in)·exp(−h̄PL/(ṁc_p)); with heat_flux (uniform flux) from T_out = T_in + q″PL/(ṁc_p). Bulk properties at ' +
+      '(T_in + T_out)/2, wall properties at the wall. velocity and flow_rate are taken at the inlet (ṁ = ρ_in·u·A). Without length: no ' +
+      'energy balance, properties at the inlet temperature.',
   },
   {
     id: 'duct',
@@ -84,6 +95,11 @@ export const configurations: Configuration[] = [
     lengthNote: 'hydraulic diameter D_h = 2ab/(a+b)',
     propertyRule: 'bulk',
     dimensionalInputs: ['velocity', 'flow_rate', 'width', 'height', 'length'],
+    conventions:
+      'fluid_temperature is the INLET bulk temperature. With surface_temperature (uniform wall temperature) the outlet follows from ' +
+      'T_s − T_out = (T_s − T_in)·exp(−h̄PL/(ṁc_p)); with heat_flux (uniform flux) from T_out = T_in + q″PL/(ṁc_p). Bulk properties at ' +
+      '(T_in + T_out)/2, wall properties at the wall. velocity and flow_rate are taken at the inlet (ṁ = ρ_in·u·A). Without length: no ' +
+      'energy balance, properties at the inlet temperature.',
   },
   {
     id: 'vertical-plate',
@@ -125,6 +141,44 @@ export const configurations: Configuration[] = [
 
 /** Inputs every dimensional study may use, whatever the configuration. */
 export const commonDimensionalInputs = ['surface_temperature', 'fluid_temperature', 'heat_flux', 'pressure'];
+
+/** Whether radiation to the surroundings is offered: external flow and free convection (a bank's tubes see each other, so not there). */
+export function radiates(c: Configuration): boolean {
+  return (c.regime === 'external' || c.regime === 'free') && c.id !== 'tube-bank';
+}
+
+/** Whether the engine closes an energy balance along the flow (fluid_temperature is then the inlet). */
+export function hasEnergyBalance(c: Configuration): boolean {
+  return c.regime === 'internal' || c.id === 'tube-bank';
+}
+
+/** Every dimensional input a study may give for the configuration. */
+export function dimensionalInputsOf(c: Configuration): string[] {
+  const radiation = radiates(c) ? ['surroundings_temperature', 'heat_rate'] : [];
+  return [...new Set([...c.dimensionalInputs, ...commonDimensionalInputs, ...radiation, 'characteristic_length'])];
+}
+
+/** Dimensionless inputs the engine itself reads for the configuration (quantities.ts engineInputSpecs). */
+export function engineInputsOf(c: Configuration): string[] {
+  return [...(radiates(c) ? ['emissivity'] : []), ...(c.id === 'tube-bank' ? ['tubes_per_row'] : [])];
+}
+
+/** Outputs the dimensional engine adds for the configuration (quantities.ts engineOutputSpecs). */
+export function engineOutputsOf(c: Configuration): string[] {
+  const common = ['h', 'q', 'heat_rate', 'property_temperature', 'surface_temperature', 'surface_area'];
+  if (hasEnergyBalance(c)) {
+    const balance = ['outlet_temperature', 'mean_bulk_temperature', 'mass_flow', 'log_mean_temperature_difference', 'pressure_drop'];
+    return [...common, ...balance, ...(c.regime === 'internal' ? ['surface_temperature_outlet'] : [])];
+  }
+  const radiation = radiates(c) ? ['h_radiation', 'q_radiation', 'q_total', 'heat_rate_radiation', 'heat_rate_total', 'radiation_fraction'] : [];
+  const local = c.regime === 'external' ? ['h_x', 'velocity', 'adiabatic_wall_temperature', 'delta99', 'Ec'] : ['h_x', 'delta99'];
+  return [...common, ...local, ...radiation];
+}
+
+/** The configuration as the catalogue shows it (`methods --json`, the dashboard): with its full input and output lists. */
+export function describeConfiguration(c: Configuration) {
+  return { ...c, dimensionalInputs: dimensionalInputsOf(c), engineInputs: engineInputsOf(c), engineOutputs: engineOutputsOf(c) };
+}
 
 export const configurationIds = configurations.map((c) => c.id);
 

@@ -5,7 +5,8 @@
 import { LineCounter, isAlias, parseDocument, visit, type Document } from 'yaml';
 import type { z } from 'zod';
 import { getMethod, methodsFor, requireConfiguration } from '../physics/catalogue.js';
-import { commonDimensionalInputs } from '../physics/configurations.js';
+import { dimensionalInputsOf } from '../physics/configurations.js';
+import { conflictMessage, inputConflicts } from '../physics/point-inputs.js';
 import { derivableInputs, missingInputs, resolveFluid, unknownInputs, type FluidSpec, type SolvePlan } from '../physics/engine.js';
 import { dimensionalNames } from '../physics/quantities.js';
 import { InputError, type InputSpec, type InputValue, type Inputs, type Method } from '../physics/types.js';
@@ -108,7 +109,7 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     try {
       const c = requireConfiguration(configuration);
       // characteristic_length overrides the length of any configuration (engine.ts).
-      configurationInputs = new Set([...c.dimensionalInputs, ...commonDimensionalInputs, 'characteristic_length']);
+      configurationInputs = new Set(dimensionalInputsOf(c));
       const resolved = resolveMethods(configuration, listedMethods, raw.methods !== undefined, report);
       methods = resolved.methods;
       if (!resolved.ok) complete = false;
@@ -152,8 +153,8 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     else sweepComplete = complete = false;
   }
 
-  // Fluid, with constant properties in SI.
-  const fluid = rawFluid === undefined ? undefined : convertFluid(rawFluid, report);
+  // Fluid, with constant properties and mixture parameters in SI.
+  const fluid = rawFluid === undefined ? undefined : convertFluid(rawFluid, report, { inputs, sweptNames });
   if (rawFluid !== undefined && fluid === undefined) complete = false;
 
   // Names against the catalogue: unknown, missing, and whether a fluid is needed.
@@ -180,6 +181,11 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
         complete = false;
       }
     }
+  }
+  // One thing said once: velocity with Re, heat_flux with surface_temperature, Pr with a fluid …
+  for (const c of inputConflicts(names, raw.fluid !== undefined)) {
+    report(pathOf(c.second), conflictMessage(c), true);
+    complete = false;
   }
   const dimensional = names.filter(isDimensional);
   if (dimensional.length && raw.fluid === undefined) {
@@ -386,10 +392,18 @@ function plainNumber(v: number | string): number {
 // SI units of the `{constant: {...}}` properties, as mathjs spells them.
 const propertyUnits = { rho: 'kg/m^3', cp: 'J/(kg K)', mu: 'Pa s', k: 'W/(m K)', beta: 'K^-1' } as const;
 
-function convertFluid(raw: NonNullable<StudyFile['fluid']>, report: Report): FluidSpec | undefined {
+function convertFluid(
+  raw: NonNullable<StudyFile['fluid']>,
+  report: Report,
+  study: { inputs: Inputs; sweptNames: string[] },
+): FluidSpec | undefined {
   let spec: FluidSpec;
   if (typeof raw === 'string' || 'table' in raw) spec = raw;
-  else {
+  else if ('name' in raw) {
+    const mixture = convertMixture(raw, report, study);
+    if (!mixture) return undefined;
+    spec = mixture;
+  } else {
     const constant: Record<string, number> = {};
     let ok = true;
     for (const [key, value] of Object.entries(raw.constant)) {
@@ -413,6 +427,36 @@ function convertFluid(raw: NonNullable<StudyFile['fluid']>, report: Report): Flu
     report(['fluid'], e.message);
     return undefined;
   }
+}
+
+type RawMixture = Extract<NonNullable<StudyFile['fluid']>, { name: string }>;
+
+// `{name, concentration: 40 %}` or `{name: humid-air, relative_humidity: 60 %}` in SI
+// fractions. Humid air takes the study's fixed `pressure` input (default 1 atm, see
+// fluids/humidAir.ts): its composition at a given relative humidity depends on the
+// pressure, and a study resolves its fluid once, so a swept pressure is refused.
+function convertMixture(raw: RawMixture, report: Report, study: { inputs: Inputs; sweptNames: string[] }): FluidSpec | undefined {
+  const spec: { name: string; concentration?: number; relative_humidity?: number; pressure?: number } = { name: raw.name };
+  let ok = true;
+  for (const key of ['concentration', 'relative_humidity'] as const) {
+    const value = raw[key];
+    if (value === undefined) continue;
+    if (typeof value === 'number' && value > 1) {
+      report(['fluid', key], `${key}: ${value} reads as a fraction (${value * 100} %); write "${value} %" or ${value / 100}`);
+      ok = false;
+      continue;
+    }
+    spec[key] = relativeOf(value);
+  }
+  if (raw.name === 'humid-air') {
+    if (study.sweptNames.includes('pressure')) {
+      report(['sweep', 'over', 'pressure'], "humid-air takes one pressure per study (its composition at a relative humidity depends on it): fix 'pressure' under inputs", true);
+      ok = false;
+    }
+    const pressure = study.inputs.pressure;
+    if (typeof pressure === 'number') spec.pressure = pressure;
+  }
+  return ok ? spec : undefined;
 }
 
 /** Design rules and the point limit, from entry lengths alone; false when something was reported. */

@@ -69,11 +69,30 @@ const tableFluid = strict({
   beta: column.optional().describe('volumetric expansion coefficient, 1/K'),
 });
 
+// A mixture's parameter: a percentage ("40 %") or a fraction (0.4).
+const fractionError = 'expected a percentage such as "40 %" or a fraction such as 0.4';
+const fraction = z
+  .union([z.string().regex(percentPattern, { error: fractionError }), z.number({ error: fractionError })], { error: fractionError })
+  .describe('a percentage such as "40 %", or a fraction such as 0.4');
+
+const mixtureFluid = strict({
+  name: z.string({ error: 'expected a fluid name such as propylene-glycol-water' }).describe('catalogue fluid name'),
+  concentration: fraction.optional().describe('glycol mass fraction of a glycol–water solution, 10 % to 60 %'),
+  relative_humidity: fraction
+    .optional()
+    .describe('relative humidity of humid-air, 0 % to 100 % (its pressure is the pressure input, default 1 atm)'),
+});
+
 export const fluidSchema = z
-  .union([z.string(), strict({ constant: constantFluid }), strict({ table: tableFluid })], {
-    error: 'expected a catalogue fluid name, {constant: {rho, cp, mu, k}} or {table: {T, rho, cp, mu, k}}',
+  .union([z.string(), strict({ constant: constantFluid }), strict({ table: tableFluid }), mixtureFluid], {
+    error:
+      'expected a catalogue fluid name, {name: propylene-glycol-water, concentration: 40 %}, ' +
+      '{name: humid-air, relative_humidity: 60 %}, {constant: {rho, cp, mu, k}} or {table: {T, rho, cp, mu, k}}',
   })
-  .describe('a catalogue fluid (water, air, …), {constant: {rho, cp, mu, k, beta?}} or {table: {T: [...], rho: [...], cp, mu, k, beta?}}');
+  .describe(
+    'a catalogue fluid (water, air, …), a mixture {name: ethylene-glycol-water | propylene-glycol-water, concentration: 40 %} ' +
+      'or {name: humid-air, relative_humidity: 60 %}, {constant: {rho, cp, mu, k, beta?}} or {table: {T: [...], rho: [...], cp, mu, k, beta?}}',
+  );
 
 const count = z
   .number({ error: 'expected a whole number ≥ 2' })

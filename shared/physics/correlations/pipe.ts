@@ -12,6 +12,7 @@ import {
   withPressureDrop,
 } from './friction.js';
 import { readInputs } from './method-inputs.js';
+import { laminarEntryFlag, shortTubeFactor, shortTubeInput, turbulentEntryFlag } from './entry-length.js';
 
 const CONFIGURATION = 'pipe';
 
@@ -21,8 +22,9 @@ export const LAMINAR_RE_LIMIT = 2300;
 export const TURBULENT_RE_MIN = 1e4;
 
 // Fully developed laminar Nusselt numbers, Shah & London (1978): 3.657 (uniform wall
-// temperature, Graetz eigenvalue) and 48/11 = 4.364 (uniform heat flux).
-export const LAMINAR_NU = { temperature: 3.66, flux: 4.36 } as const;
+// temperature, Graetz eigenvalue 3.65679, checked against tests/fixtures/laminar_duct_reference.py)
+// and 48/11 = 4.364 (uniform heat flux), at full precision rather than the textbooks' 3.66 / 4.36.
+export const LAMINAR_NU = { temperature: 3.65679, flux: 48 / 11 } as const;
 export type WallCondition = keyof typeof LAMINAR_NU;
 
 const ReInput: InputSpec = { name: 'Re', description: 'Reynolds number on the inner diameter, u_m D/ν', unit: '1', required: true };
@@ -70,7 +72,23 @@ const turbulentOutputs = outputs('Petukhov (0.790 ln Re − 1.64)^−2 for smoot
 
 const laminarRe: ValidityRange = { input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar pipe flow' };
 const turbulentRe: ValidityRange = { input: 'Re', min: TURBULENT_RE_MIN, note: 'fully turbulent flow' };
-const fullyDevelopedLength: ValidityRange = { input: 'L_over_D', min: 10, note: 'fully developed turbulent flow' };
+const optionalPrInput: InputSpec = {
+  name: 'Pr',
+  description: 'Prandtl number at the bulk temperature (optional: with L_over_D it gives the thermal entry-length check)',
+  unit: '1',
+  required: false,
+};
+
+/**
+ * A turbulent method's Nu with the optional short-tube factor, and its entry-region flag
+ * (flagged below L/D = 10 unless the factor is applied).
+ */
+function turbulentLength(input: { values: Record<string, unknown>; boolean(name: string): boolean }, Nu: number, L_over_D: number | undefined) {
+  const corrected = input.boolean('short_tube_correction');
+  if (corrected && L_over_D === undefined) throw new InputError('short_tube_correction needs L_over_D');
+  const flag = turbulentEntryFlag(L_over_D, corrected);
+  return { Nu: corrected ? Nu * shortTubeFactor(L_over_D!) : Nu, flags: flag ? [flag] : [] };
+}
 
 
 
@@ -80,24 +98,26 @@ const laminarDeveloped: Method = {
   kind: 'correlation',
   title: 'Fully developed laminar flow (Nu = 3.66 / 4.36)',
   description:
-    'Hydrodynamically and thermally fully developed laminar flow, constant properties. Nu = 3.66 for a uniform wall temperature, 4.36 for a uniform wall heat flux; independent of Re and Pr. Use hausen or sieder-tate-laminar for short tubes where the entry region matters.',
+    'Hydrodynamically and thermally fully developed laminar flow, constant properties. Nu = 3.66 for a uniform wall temperature, 4.36 for a uniform wall heat flux; independent of Re and Pr. Flagged entry-region where the tube is shorter than the entry length (0.05·Re·D hydrodynamic, 0.05·Re·Pr·D thermal): use hausen or sieder-tate-laminar there.',
   equation:
     '\\mathrm{Nu}_D = 3.66\\ (T_s = \\text{const}),\\quad \\mathrm{Nu}_D = \\tfrac{48}{11} = 4.36\\ (q_s\'\' = \\text{const}),\\quad f = 64/\\mathrm{Re}_D',
-  inputs: [ReInput, wallConditionInput, lengthInput(false)],
+  inputs: [ReInput, wallConditionInput, lengthInput(false), optionalPrInput],
   outputs: laminarOutputs,
-  ranges: [laminarRe],
+  ranges: [laminarRe, { input: 'L_over_D', note: 'fully developed: flagged entry-region where L/D < 0.05·Re·max(1, Pr)' }],
   uncertainty: {
     fraction: 0.1,
     note: 'Exact for constant properties and fully developed flow (checked against tests/fixtures/laminar_duct_reference.py); ±10 % for real tubes, where properties vary, is common practice.',
   },
   source:
     'Graetz, L. (1883) Ann. Phys. 18:79–94 (uniform wall temperature); Shah, R.K. & London, A.L. (1978) Laminar Flow Forced Convection in Ducts, Academic Press (3.657 and 4.364); as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., §8.4.1',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(laminarDeveloped, raw);
     const Re = input.number('Re');
-    const Nu = LAMINAR_NU[input.string('wall_condition') as WallCondition];
-    return { outputs: withPressureDrop(Nu, laminarFrictionFactor(Re), optionalLengthRatio(input)), flags: rangeFlags(laminarDeveloped.ranges, input.values) };
+    const Nu: number = LAMINAR_NU[input.string('wall_condition') as WallCondition];
+    const LD = optionalLengthRatio(input);
+    const entry = laminarEntryFlag(Re, input.values.Pr === undefined ? undefined : input.number('Pr'), LD);
+    return { outputs: withPressureDrop(Nu, laminarFrictionFactor(Re), LD), flags: [...rangeFlags(laminarDeveloped.ranges, input.values), ...(entry ? [entry] : [])] };
   },
 };
 
@@ -118,6 +138,7 @@ const hausen: Method = {
   inputs: [ReInput, PrInput, lengthInput(true)],
   outputs: [...laminarOutputs, { name: 'Gz', description: 'Graetz number Re·Pr/(L/D)', unit: '1' }],
   ranges: [laminarRe],
+  wallConditions: ['temperature'],
   uncertainty: {
     fraction: 0.12,
     note: 'Against the exact Graetz solution (tests/fixtures/graetz_reference.py): within 2 % for Gz ≤ 100, up to 12 % high near Gz = 3000; real-tube property effects come on top.',
@@ -156,6 +177,7 @@ const siederTateLaminar: Method = {
     { input: 'viscosity_ratio', min: 0.0044, max: 9.75 },
     { input: 'L_over_D', note: 'short tubes only: flagged when (Gz)^⅓(μ_b/μ_s)^0.14 < 2' },
   ],
+  wallConditions: ['temperature'],
   uncertainty: { fraction: 0.2, note: 'Common practice; the sources state no figure.' },
   source:
     'Sieder, E.N. & Tate, G.E. (1936) Ind. Eng. Chem. 28:1429–1435; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 6th ed., §8.4.2 (edition from memory)',
@@ -185,22 +207,23 @@ const dittusBoelter: Method = {
   description:
     'Fully developed turbulent flow in a smooth tube, moderate wall-to-bulk temperature differences. Exponent n = 0.4 when the fluid is heated (heating = true, the default) and 0.3 when it is cooled.',
   equation: '\\mathrm{Nu}_D = 0.023\\,\\mathrm{Re}_D^{4/5}\\mathrm{Pr}^{n},\\quad n = 0.4\\ (T_s > T_m),\\ 0.3\\ (T_s < T_m)',
-  inputs: [ReInput, PrInput, heatingInput, lengthInput(false)],
+  inputs: [ReInput, PrInput, heatingInput, lengthInput(false), shortTubeInput],
   outputs: turbulentOutputs,
-  ranges: [turbulentRe, { input: 'Pr', min: 0.6, max: 160 }, fullyDevelopedLength],
+  ranges: [turbulentRe, { input: 'Pr', min: 0.6, max: 160 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }],
   uncertainty: {
     fraction: 0.25,
     note: 'Incropera et al. (§8.5): errors as large as 25 % (wording from memory).',
   },
   source:
     'Dittus, F.W. & Boelter, L.M.K. (1930) Univ. Calif. Publ. Eng. 2:443–461 (reprinted Int. Comm. Heat Mass Transfer 12 (1985) 3–22); the 0.023 coefficient is McAdams\' restatement (Winterton, R.H.S. (1998) Int. J. Heat Mass Transfer 41:809–810); as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 8.60',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(dittusBoelter, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
-    const Nu = dittusBoelterNusselt(Re, Pr, input.boolean('heating'));
-    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), optionalLengthRatio(input)), flags: rangeFlags(dittusBoelter.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const { Nu, flags } = turbulentLength(input, dittusBoelterNusselt(Re, Pr, input.boolean('heating')), LD);
+    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), LD), flags: [...rangeFlags(dittusBoelter.ranges, input.values), ...flags] };
   },
 };
 
@@ -217,22 +240,23 @@ const siederTate: Method = {
   description:
     'Fully developed turbulent flow in a smooth tube where viscosity varies strongly between wall and bulk (oils); the (μ_b/μ_s)^0.14 factor carries the correction. All properties except μ_s at the bulk temperature.',
   equation: '\\mathrm{Nu}_D = 0.027\\,\\mathrm{Re}_D^{4/5}\\mathrm{Pr}^{1/3}\\left(\\frac{\\mu}{\\mu_s}\\right)^{0.14}',
-  inputs: [ReInput, PrInput, viscosityRatioInput, lengthInput(false)],
+  inputs: [ReInput, PrInput, viscosityRatioInput, lengthInput(false), shortTubeInput],
   outputs: turbulentOutputs,
-  ranges: [turbulentRe, { input: 'Pr', min: 0.7, max: 16700 }, fullyDevelopedLength],
+  ranges: [turbulentRe, { input: 'Pr', min: 0.7, max: 16700 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }],
   uncertainty: {
     fraction: 0.25,
     note: 'Incropera et al. (§8.5): errors as large as 25 % (wording from memory).',
   },
   source:
     'Sieder, E.N. & Tate, G.E. (1936) Ind. Eng. Chem. 28:1429–1435; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 8.61',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(siederTate, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
-    const Nu = siederTateNusselt(Re, Pr, input.number('viscosity_ratio'));
-    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), optionalLengthRatio(input)), flags: rangeFlags(siederTate.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const { Nu, flags } = turbulentLength(input, siederTateNusselt(Re, Pr, input.number('viscosity_ratio')), LD);
+    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), LD), flags: [...rangeFlags(siederTate.ranges, input.values), ...flags] };
   },
 };
 
@@ -259,22 +283,24 @@ const gnielinski: Method = {
     'Fully developed transitional and turbulent flow in a smooth tube, built on the Petukhov friction factor f = (0.790 ln Re − 1.64)^−2. More accurate than Dittus–Boelter and valid down to Re = 3000. Undefined (an input error) for Re ≤ 1000.',
   equation:
     '\\mathrm{Nu}_D = \\frac{(f/8)(\\mathrm{Re}_D - 1000)\\mathrm{Pr}}{1 + 12.7\\,(f/8)^{1/2}\\left(\\mathrm{Pr}^{2/3} - 1\\right)},\\quad f = (0.790\\ln\\mathrm{Re}_D - 1.64)^{-2}',
-  inputs: [ReInput, PrInput, lengthInput(false)],
+  inputs: [ReInput, PrInput, lengthInput(false), shortTubeInput],
   outputs: turbulentOutputs,
-  ranges: gnielinskiRanges,
+  ranges: [...gnielinskiRanges, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }],
   uncertainty: {
     fraction: 0.1,
     note: 'Incropera et al. (§8.5): errors reduced to less than 10 % compared with Dittus–Boelter (wording from memory).',
   },
   source:
     'Gnielinski, V. (1976) Int. Chem. Eng. 16:359–368, with Petukhov, B.S. (1970) Adv. Heat Transfer 6:503–564; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 8.62 and 8.21',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(gnielinski, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
     const f = petukhovFrictionFactor(Re);
-    return { outputs: withPressureDrop(gnielinskiNusselt(Re, Pr, f), f, optionalLengthRatio(input)), flags: rangeFlags(gnielinski.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const { Nu, flags } = turbulentLength(input, gnielinskiNusselt(Re, Pr, f), LD);
+    return { outputs: withPressureDrop(Nu, f, LD), flags: [...rangeFlags(gnielinski.ranges, input.values), ...flags] };
   },
 };
 
