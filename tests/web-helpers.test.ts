@@ -192,6 +192,8 @@ describe('flags in words', () => {
     expect(flagText(describeFlag('out-of-range:Pe', {}, [{ input: 'Pe', min: 0.2 }]), q)).toBe('Pe outside 0.2 ≤ Pe');
     expect(flagText({ flag: 'out-of-range:fluid_temperature', name: 'fluid_temperature', value: 253.15, min: 273.15 }, q)).toBe('fluid_temperature -20 °C < 0 °C');
     expect(flagText(describeFlag('separation', {}, undefined), q)).toMatch(/separates/);
+    expect(flagText(describeFlag('out-of-chart:pitch', {}, undefined), q)).toBe('pitch beyond the pressure-drop charts (χ = 1 used)');
+    expect(flagText(describeFlag('something-new', {}, undefined), q)).toBe('something-new');
   });
 });
 

@@ -118,11 +118,15 @@ export function tooltipOf(page: Page, testId = 'chart') {
   return page.getByTestId(testId).locator('div[style*="z-index: 9999999"]');
 }
 
-/** Hovers the centre of a drawn data symbol (an SVG path with this fill, scaled by ECharts), not a legend icon. */
-export async function hoverSymbol(page: Page, fill: string, index = 0, testId = 'chart'): Promise<number> {
+/**
+ * Hovers the centre of a drawn data symbol (an SVG path with one of these fills, scaled by
+ * ECharts), not a legend icon. A flagged point is a hollow diamond: fill #ffffff.
+ */
+export async function hoverSymbol(page: Page, fill: string | string[], index = 0, testId = 'chart'): Promise<number> {
   const chart = page.getByTestId(testId);
   await chart.scrollIntoViewIfNeeded();
-  const symbols = chart.locator(`svg path[fill="${fill}"][transform^="matrix"]`);
+  const fills = (Array.isArray(fill) ? fill : [fill]).map((f) => `[fill="${f}"]`).join(', ');
+  const symbols = chart.locator(`svg path[transform^="matrix"]:is(${fills})`);
   const n = await symbols.count();
   if (n <= index) throw new Error(`no data symbol ${index} filled ${fill} (found ${n})`);
   const box = (await symbols.nth(index).boundingBox())!;
