@@ -315,8 +315,8 @@ function tooltipHtml(
   const item = Array.isArray(p.data) ? undefined : p.data;
   if (item?.flagged) {
     const details: FlagDetail[] = item.detail !== undefined ? (data.flag_details[item.detail] ?? []) : [];
-    const text = details.length ? details.map((d) => flagText(d, q)) : ['flagged'];
-    lines.push(`<span style="color:#8c4119">outside its range: ${text.map(escapeHtml).join('; ')}</span>`);
+    const text = details.map((d) => escapeHtml(flagText(d, q))).join('; ');
+    lines.push(`<span style="color:#8c4119">flagged${text ? `: ${text}` : ''}</span>`);
   }
   return lines.join('<br/>');
 }
