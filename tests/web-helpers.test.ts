@@ -203,6 +203,10 @@ describe('chart defaults', () => {
     const facts = [f('velocity', 'input', 1, 20, 8), f('length', 'input', 0.5, 5, 4), f('fluid_temperature', 'input', 300, 300, 1), f('Re', 'output', 1e3, 1e5, 32), f('Nu', 'output', 30, 3000, 100), f('h', 'output', 10, 90, 100)];
     expect(defaultChoice(facts, 'external')).toEqual({ x: 'Re', y: 'Nu', by: 'length', layout: 'style' });
   });
+  it('does not split by the one swept input that x derives from', () => {
+    const facts = [f('velocity', 'input', 1, 20, 8), f('Re', 'output', 600, 16000, 24), f('Nu', 'output', 12, 77, 24)];
+    expect(defaultChoice(facts, 'external')).toEqual({ x: 'Re', y: 'Nu', by: 'method', layout: 'style' });
+  });
   it('takes Ra for free convection, and the widest swept input when no group varies', () => {
     expect(defaultChoice([f('height', 'input', 0.3, 1.2, 3), f('Ra', 'output', 1e7, 1e10, 27), f('Nu', 'output', 30, 300, 27)], 'free').x).toBe('Ra');
     const dimensionless = [f('Pr', 'input', 0.7, 7, 2), f('Re', 'input', 800, 3e5, 7), f('Nu', 'output', 3.66, 3.66, 1), f('h', 'output', 1, 9, 5)];

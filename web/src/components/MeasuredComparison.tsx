@@ -5,13 +5,15 @@ import { useMemo } from 'react';
 import { createColumnHelper } from '@tanstack/react-table';
 import type { ChartData, MeasuredRow, RunInfo } from '../api/types.js';
 import { exportChart, exportTitle } from '../lib/chart-export.js';
-import { formatCount, formatPercent } from '../lib/format.js';
+import { formatCount, formatNumber, formatPercent } from '../lib/format.js';
 import { buildParityOption } from '../lib/parity-option.js';
-import { formatQuantity, labelWithUnit, type Quantities } from '../lib/units.js';
+import { labelWithUnit, type Quantities, type Quantity } from '../lib/units.js';
 import { DataTable } from './DataTable.js';
 import { EChart } from './EChart.js';
 
 const col = createColumnHelper<MeasuredRow>();
+/** A value in the units shown (the header carries the unit). */
+const shown = (q: Quantity, v: number | null | undefined) => (v === null || v === undefined ? '—' : formatNumber(q.toDisplay(v)));
 
 export function MeasuredComparison({ run, data, quantities }: { run: RunInfo; data: ChartData; quantities: Quantities }) {
   const measured = data.measured!;
@@ -21,10 +23,10 @@ export function MeasuredComparison({ run, data, quantities }: { run: RunInfo; da
   const parity = useMemo(() => buildParityOption(measured, methods, qy), [measured, qy]);
   const columns = useMemo(
     () => [
-      col.accessor('x', { header: labelWithUnit(qx), meta: { numeric: true }, cell: (c) => formatQuantity(qx, c.getValue()) }),
-      col.accessor('measured', { header: `measured ${labelWithUnit(qy)}`, meta: { numeric: true }, cell: (c) => formatQuantity(qy, c.getValue()) }),
+      col.accessor('x', { header: labelWithUnit(qx), meta: { numeric: true }, cell: (c) => shown(qx, c.getValue()) }),
+      col.accessor('measured', { header: `measured ${labelWithUnit(qy)}`, meta: { numeric: true }, cell: (c) => shown(qy, c.getValue()) }),
       ...methods.flatMap((m) => [
-        col.accessor((r) => r.predicted[m], { id: `p-${m}`, header: `${m} ${labelWithUnit(qy)}`, meta: { numeric: true }, cell: (c) => formatQuantity(qy, c.getValue()) }),
+        col.accessor((r) => r.predicted[m], { id: `p-${m}`, header: `${m} ${labelWithUnit(qy)}`, meta: { numeric: true }, cell: (c) => shown(qy, c.getValue()) }),
         col.accessor((r) => r.deviation[m], { id: `d-${m}`, header: `${m} deviation [%]`, meta: { numeric: true }, cell: (c) => formatPercent(c.getValue()) }),
       ]),
     ],

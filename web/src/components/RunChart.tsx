@@ -44,7 +44,7 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
   // Defaults follow the facts (a live run gains names) until the user picks.
   const defaults = useMemo(() => defaultChoice(facts, regime), [axes.data, regime]);
   const choice: ChartChoice = { ...defaults, ...chosen };
-  if (choice.by !== 'method' && !facts.some((f) => f.name === choice.by)) choice.by = 'method';
+  if (choice.by !== 'method' && (choice.by === choice.x || !facts.some((f) => f.name === choice.by))) choice.by = 'method';
   const drawnMethods = methods.length || run.methods.length;
   const problem = facts.length ? seriesProblem(facts, choice, drawnMethods) : null;
   const query: ChartQuery | null =

@@ -54,7 +54,9 @@ export function defaultChoice(facts: readonly AxisFacts[], regime: string | unde
     outputs.find((f) => varies(f))?.name ??
     outputs[0]?.name ??
     '';
-  const second = secondInputs(facts, x).sort((a, b) => a.distinct - b.distinct)[0];
+  // With one swept input, x is that input or derived from it alone: splitting by it would
+  // leave one point per series.
+  const second = swept.length + secondInputs(facts, x).filter((f) => !varies(f)).length >= 2 ? secondInputs(facts, x).sort((a, b) => a.distinct - b.distinct)[0] : undefined;
   return { x, y, by: second && second.distinct <= MAX_STYLED_VALUES ? second.name : 'method', layout: 'style' };
 }
 
