@@ -246,13 +246,16 @@ describe('pipe: gnielinski', () => {
     expect(relErr(g, db)).toBeLessThan(0.25); // seen: 10.4 %
   });
 
-  it('flags 3000 > Re and Re > 5e6, Pr outside 0.5..2000; refuses Re ≤ 1000', () => {
+  it('flags Re < 2300 (where it gives Gnielinski\'s laminar composite) and Re > 5e6, Pr outside 0.5..2000', () => {
+    // Version 3: the transition blend covers 2300 < Re < 1e4 (tests/correlations-pipe-transition.test.ts).
     expect(run(pipeMethods, 'gnielinski', { Re: 3000, Pr: 0.5 }).flags).toEqual([]);
-    expect(run(pipeMethods, 'gnielinski', { Re: 2500, Pr: 1 }).flags).toEqual(['out-of-range:Re']);
+    expect(run(pipeMethods, 'gnielinski', { Re: 2500, Pr: 1 }).flags).toEqual([]);
     expect(run(pipeMethods, 'gnielinski', { Re: 1e7, Pr: 1 }).flags).toEqual(['out-of-range:Re']);
     expect(run(pipeMethods, 'gnielinski', { Re: 1e5, Pr: 3000 }).flags).toEqual(['out-of-range:Pr']);
     expect(run(pipeMethods, 'gnielinski', { Re: 2500, Pr: 1 }).outputs.Nu).toBeGreaterThan(0);
-    expect(() => run(pipeMethods, 'gnielinski', { Re: 900, Pr: 1 })).toThrow(InputError);
+    const laminar = run(pipeMethods, 'gnielinski', { Re: 900, Pr: 1 });
+    expect(laminar.flags).toEqual(['out-of-range:Re']);
+    expect(laminar.outputs.Nu).toBe(3.66);
   });
 });
 

@@ -22,31 +22,71 @@ export interface Column {
 
 export type CellValue = number | boolean | string | undefined;
 
-export function resultColumns(rows: readonly ResultRow[], unitOf: UnitLookup): Column[] {
-  const inputNames = new Set<string>();
-  const outputNames = new Set<string>();
-  const numericInputs = new Set<string>();
-  for (const row of rows) {
-    for (const [k, v] of Object.entries(row.inputs)) {
-      inputNames.add(k);
-      if (typeof v === 'number') numericInputs.add(k);
+/**
+ * The columns of rows seen so far, fed one chunk at a time (a streamed export reads the
+ * run once for its columns, then again to write it). Also remembers, for each input of
+ * the first row, whether every row has the same value (memo-columns.ts lists those once
+ * above the table instead of as a column).
+ */
+export class ColumnCollector {
+  private readonly inputNames = new Set<string>();
+  private readonly outputNames = new Set<string>();
+  private readonly numericInputs = new Set<string>();
+  /** Inputs of the first row and whether every later row repeats the value. */
+  private readonly firstInputs = new Map<string, { value: number | boolean | string; constant: boolean }>();
+  private rowCount = 0;
+
+  add(rows: readonly ResultRow[]): this {
+    for (const row of rows) {
+      if (this.rowCount === 0) {
+        for (const [k, v] of Object.entries(row.inputs)) if (v !== undefined) this.firstInputs.set(k, { value: v, constant: true });
+      } else {
+        for (const [k, first] of this.firstInputs) if (first.constant && !sameValue(row.inputs[k], first.value)) first.constant = false;
+      }
+      this.rowCount++;
+      for (const [k, v] of Object.entries(row.inputs)) {
+        this.inputNames.add(k);
+        if (typeof v === 'number') this.numericInputs.add(k);
+      }
+      for (const k of Object.keys(row.outputs)) this.outputNames.add(k);
     }
-    for (const k of Object.keys(row.outputs)) outputNames.add(k);
+    return this;
   }
-  const unitFor = (name: string) => {
-    const u = unitOf(name);
-    return u === undefined ? '?' : displayUnit(u);
-  };
-  const columns: Column[] = [{ kind: 'method', name: 'method', label: 'method' }];
-  for (const name of inputNames) {
-    columns.push({ kind: 'input', name, label: name, unit: numericInputs.has(name) ? unitFor(name) : undefined });
+
+  get rows(): number {
+    return this.rowCount;
   }
-  for (const name of outputNames) {
-    const label = inputNames.has(name) ? `${name} (output)` : name;
-    columns.push({ kind: 'output', name, label, unit: unitFor(name) });
+
+  /** The input's value when every row has the same one, else undefined. */
+  constantInput(name: string): number | boolean | string | undefined {
+    const first = this.firstInputs.get(name);
+    return first?.constant ? first.value : undefined;
   }
-  columns.push({ kind: 'flags', name: 'flags', label: 'flags' });
-  return columns;
+
+  columns(unitOf: UnitLookup): Column[] {
+    const unitFor = (name: string) => {
+      const u = unitOf(name);
+      return u === undefined ? '?' : displayUnit(u);
+    };
+    const columns: Column[] = [{ kind: 'method', name: 'method', label: 'method' }];
+    for (const name of this.inputNames) {
+      columns.push({ kind: 'input', name, label: name, unit: this.numericInputs.has(name) ? unitFor(name) : undefined });
+    }
+    for (const name of this.outputNames) {
+      const label = this.inputNames.has(name) ? `${name} (output)` : name;
+      columns.push({ kind: 'output', name, label, unit: unitFor(name) });
+    }
+    columns.push({ kind: 'flags', name: 'flags', label: 'flags' });
+    return columns;
+  }
+}
+
+export function sameValue(a: unknown, b: unknown): boolean {
+  return a === b || (typeof a === 'number' && typeof b === 'number' && Object.is(a, b));
+}
+
+export function resultColumns(rows: readonly ResultRow[], unitOf: UnitLookup): Column[] {
+  return new ColumnCollector().add(rows).columns(unitOf);
 }
 
 /** `label [unit]`, or the bare label for text columns. */

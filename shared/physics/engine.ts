@@ -11,7 +11,8 @@
 //                     surface-temperature solve (surface-temperature.ts)
 import { getMethod, methodsFor, requireConfiguration } from './catalogue.js';
 import { dimensionalInputsOf, engineInputsOf, hasEnergyBalance, type Configuration } from './configurations.js';
-import { outputExtensions } from './extensions.js';
+import { derivableExtensions, outputExtensions } from './extensions.js';
+import './catalogue-extensions.js'; // registers the newer configurations' geometry and outputs
 import { resolveFluidSpec, type FluidSpec } from './fluids/index.js';
 import { FluidRangeError, type Fluid } from './fluids/types.js';
 import { evaluateDimensionless, MethodDomainError, type PointContext, type ResultRow } from './forward.js';
@@ -162,6 +163,7 @@ export function derivableInputs(configurationId: string, names: readonly string[
   if (c.regime !== 'free' && flow) out.add('Re');
   if (have.has('length') && (c.id === 'pipe' || c.id === 'duct')) out.add('L_over_D');
   if (c.id === 'duct' && have.has('width') && have.has('height')) out.add('aspect_ratio');
+  for (const n of derivableExtensions.get(c.id)?.(have) ?? []) out.add(n);
   return out;
 }
 

@@ -16,11 +16,20 @@ export interface ExtensionGeometry {
   flowLength?: number;
   L_over_D?: number;
   aspect_ratio?: number;
+  /** Dimensionless groups the sizes give (diameter_ratio, gap_over_height …), handed to the methods like L_over_D. */
+  groups?: Record<string, number>;
+  /** The velocity Re is built on over the given velocity (a heat sink's channel velocity V(1 + t/S)); default 1. */
+  velocityRatio?: number;
 }
 
 export type GeometryBuilder = (inputs: Inputs, need: (name: string, v: number | undefined) => number) => ExtensionGeometry;
 
 export const geometryExtensions = new Map<string, GeometryBuilder>();
+
+/** The groups a configuration's geometry derives from the input names a point gives (for the study checks before a run). */
+export type DerivableGroups = (names: ReadonlySet<string>) => string[];
+
+export const derivableExtensions = new Map<string, DerivableGroups>();
 
 export interface OutputExtensionContext {
   inputs: Inputs;

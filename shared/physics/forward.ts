@@ -95,6 +95,8 @@ export function forward(ctx: PointContext, state: ForwardState): ForwardResult {
     const Gr = (GRAVITY * Math.abs(props.beta * (Ts - Tfluid)) * L ** 3) / props.nu ** 2;
     derived.Gr = Gr;
     derived.Ra = Gr * props.Pr;
+    // A free configuration that also takes a forced flow (a heat sink's fan): Re on the velocity it is given.
+    if (velocity !== undefined) derived.Re = (velocity * (geometry.velocityRatio ?? 1) * L) / props.nu;
   } else {
     const flowRate = num(inputs, 'flow_rate');
     if (velocity === undefined && flowRate !== undefined) {
@@ -102,12 +104,13 @@ export function forward(ctx: PointContext, state: ForwardState): ForwardResult {
       velocity = flowRate / geometry.flowArea;
     }
     if (velocity !== undefined) {
-      const vRef = configuration.id === 'tube-bank' ? velocity * tubeBankRatio(inputs) : velocity;
+      const vRef = velocity * (configuration.id === 'tube-bank' ? tubeBankRatio(inputs) : geometry.velocityRatio ?? 1);
       derived.Re = (vRef * L) / props.nu;
     }
   }
   if (geometry.L_over_D !== undefined) derived.L_over_D = geometry.L_over_D;
   if (geometry.aspect_ratio !== undefined) derived.aspect_ratio = geometry.aspect_ratio;
+  Object.assign(derived, geometry.groups);
   const Re = (inputs.Re as number | undefined) ?? derived.Re;
   if (velocity === undefined && Re !== undefined && configuration.regime !== 'free') velocity = (Re * props.nu) / L;
   if (velocity !== undefined && configuration.regime !== 'free') derived.velocity = velocity;

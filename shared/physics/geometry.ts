@@ -60,6 +60,7 @@ export function geometryOf(c: Configuration, inputs: Inputs): Geometry {
     }
     case 'pipe': {
       const d = need('diameter', D);
+      const roughness = optionalNumber(inputs, 'roughness');
       return {
         length: override ?? d,
         flowArea: (Math.PI * d * d) / 4,
@@ -67,6 +68,7 @@ export function geometryOf(c: Configuration, inputs: Inputs): Geometry {
         flowLength: len,
         area: len !== undefined ? Math.PI * d * len : undefined,
         L_over_D: len !== undefined ? len / d : undefined,
+        groups: roughness !== undefined ? { relative_roughness: roughness / d } : undefined,
       };
     }
     case 'duct': {

@@ -23,6 +23,16 @@ export const dimensionalQuantities: QuantitySpec[] = [
   { name: 'heat_rate', unit: 'W', description: 'power the surface must shed (external flow, free convection): the surface temperature follows from convection plus radiation' },
   { name: 'pressure', unit: 'Pa', description: 'absolute pressure: air density scales with it; water: the boiling check uses it; other liquids refuse it' },
   { name: 'surroundings_temperature', unit: 'K', description: 'temperature of the surroundings the surface radiates to (default: fluid_temperature)' },
+  { name: 'inner_diameter', unit: 'm', description: 'annulus: outer diameter of the inner tube, D_i' },
+  { name: 'outer_diameter', unit: 'm', description: 'annulus: inner diameter of the outer tube, D_o' },
+  { name: 'gap', unit: 'm', description: 'parallel plates, vertical channel, heat-sink fins: spacing S; enclosure: distance between hot and cold walls' },
+  { name: 'fin_count', unit: '1', description: 'heat sink: number of fins N' },
+  { name: 'fin_height', unit: 'm', description: 'heat sink: fin projection from the base' },
+  { name: 'fin_thickness', unit: 'm', description: 'heat sink: fin thickness t' },
+  { name: 'fin_conductivity', unit: 'W/(m K)', description: 'heat sink: thermal conductivity of the fin material' },
+  { name: 'radius', unit: 'm', description: 'impinging jet: radius of the disc the average covers (single nozzle)' },
+  { name: 'pitch', unit: 'm', description: 'impinging jet: nozzle pitch (arrays)' },
+  { name: 'roughness', unit: 'm', description: 'pipe: absolute wall roughness ε (the Colebrook friction factor, and Gnielinski with it)' },
 ];
 
 export const dimensionalNames = new Set(dimensionalQuantities.map((q) => q.name));
@@ -67,4 +77,12 @@ export const engineOutputSpecs: { name: string; unit: string; description: strin
   { name: 'heat_rate_total', unit: 'W', description: 'convective plus radiative heat rate' },
   { name: 'radiation_fraction', unit: '1', description: 'share of radiation in the total heat flux, q_radiation/q_total' },
   { name: 'surface_area', unit: 'm^2', description: 'heated surface area the heat rates use' },
+  { name: 'optimum_gap', unit: 'm', description: 'plate or fin spacing that maximises the heat from a given base width at this height and temperature difference' },
+  { name: 'fin_efficiency', unit: '1', description: 'heat sink: tanh(mL_c)/(mL_c), a fin\'s heat over what it would shed at the base temperature' },
+  { name: 'fin_parameter', unit: '1', description: 'heat sink: mL_c with m = (2h/(k_f t))^½ and L_c = fin_height + t/2' },
+  { name: 'overall_efficiency', unit: '1', description: 'heat sink: 1 − (N A_f/A_t)(1 − η_f), fins and base together' },
+  { name: 'base_width', unit: 'm', description: 'heat sink: N t + (N − 1) S' },
+  { name: 'radiating_area', unit: 'm^2', description: 'heat sink: envelope that radiates, W L + 2 H_f L' },
+  { name: 'thermal_resistance', unit: 'K/W', description: 'heat sink: (T_base − T_air)/heat_rate_total, base to air' },
+  { name: 'channel_velocity', unit: 'm/s', description: 'heat sink, forced flow: velocity between the fins, V(1 + t/S)' },
 ];

@@ -13,6 +13,8 @@ import {
 } from './friction.js';
 import { readInputs } from './method-inputs.js';
 import { laminarEntryFlag, shortTubeFactor, shortTubeInput, turbulentEntryFlag } from './entry-length.js';
+import { pipeFrictionFactor, roughnessInput } from './colebrook.js';
+import { gnielinskiLaminarMean, intermittency, TRANSITION_RE } from './pipe-transition.js';
 
 const CONFIGURATION = 'pipe';
 
@@ -68,7 +70,11 @@ const outputs = (frictionNote: string): OutputSpec[] => [
   { name: 'pressure_drop_coefficient', description: 'K = f·L/D, so that Δp = K·½ρu_m² (only when L_over_D is given)', unit: '1' },
 ];
 const laminarOutputs = outputs('64/Re (Hagen–Poiseuille, fully developed; the entry region adds to it)');
-const turbulentOutputs = outputs('Petukhov (0.790 ln Re − 1.64)^−2 for smooth tubes, fitted for 3000 ≤ Re ≤ 5e6');
+const turbulentOutputs = outputs('Petukhov (0.790 ln Re − 1.64)^−2 for smooth tubes, fitted for 3000 ≤ Re ≤ 5e6; Colebrook with relative_roughness');
+/** Smooth-tube correlations: a rough wall raises h by more than they know (gnielinski takes the rough f). */
+const smoothOnly: ValidityRange = { input: 'relative_roughness', max: 0, note: 'smooth tubes; f follows the roughness (Colebrook), Nu does not: use gnielinski' };
+const optionalRoughness = (input: { values: Record<string, unknown>; number(name: string, domain?: 'non-negative'): number }) =>
+  input.values.relative_roughness === undefined ? undefined : input.number('relative_roughness', 'non-negative');
 
 const laminarRe: ValidityRange = { input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar pipe flow' };
 const turbulentRe: ValidityRange = { input: 'Re', min: TURBULENT_RE_MIN, note: 'fully turbulent flow' };
@@ -207,9 +213,9 @@ const dittusBoelter: Method = {
   description:
     'Fully developed turbulent flow in a smooth tube, moderate wall-to-bulk temperature differences. Exponent n = 0.4 when the fluid is heated (heating = true, the default) and 0.3 when it is cooled.',
   equation: '\\mathrm{Nu}_D = 0.023\\,\\mathrm{Re}_D^{4/5}\\mathrm{Pr}^{n},\\quad n = 0.4\\ (T_s > T_m),\\ 0.3\\ (T_s < T_m)',
-  inputs: [ReInput, PrInput, heatingInput, lengthInput(false), shortTubeInput],
+  inputs: [ReInput, PrInput, heatingInput, lengthInput(false), shortTubeInput, roughnessInput],
   outputs: turbulentOutputs,
-  ranges: [turbulentRe, { input: 'Pr', min: 0.6, max: 160 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }],
+  ranges: [turbulentRe, { input: 'Pr', min: 0.6, max: 160 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }, smoothOnly],
   uncertainty: {
     fraction: 0.25,
     note: 'Incropera et al. (§8.5): errors as large as 25 % (wording from memory).',
@@ -223,7 +229,8 @@ const dittusBoelter: Method = {
     const Pr = input.number('Pr');
     const LD = optionalLengthRatio(input);
     const { Nu, flags } = turbulentLength(input, dittusBoelterNusselt(Re, Pr, input.boolean('heating')), LD);
-    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), LD), flags: [...rangeFlags(dittusBoelter.ranges, input.values), ...flags] };
+    const friction = pipeFrictionFactor(Re, optionalRoughness(input), false);
+    return { outputs: withPressureDrop(Nu, friction.f, LD), flags: [...rangeFlags(dittusBoelter.ranges, input.values), ...flags, ...friction.flags] };
   },
 };
 
@@ -240,9 +247,9 @@ const siederTate: Method = {
   description:
     'Fully developed turbulent flow in a smooth tube where viscosity varies strongly between wall and bulk (oils); the (μ_b/μ_s)^0.14 factor carries the correction. All properties except μ_s at the bulk temperature.',
   equation: '\\mathrm{Nu}_D = 0.027\\,\\mathrm{Re}_D^{4/5}\\mathrm{Pr}^{1/3}\\left(\\frac{\\mu}{\\mu_s}\\right)^{0.14}',
-  inputs: [ReInput, PrInput, viscosityRatioInput, lengthInput(false), shortTubeInput],
+  inputs: [ReInput, PrInput, viscosityRatioInput, lengthInput(false), shortTubeInput, roughnessInput],
   outputs: turbulentOutputs,
-  ranges: [turbulentRe, { input: 'Pr', min: 0.7, max: 16700 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }],
+  ranges: [turbulentRe, { input: 'Pr', min: 0.7, max: 16700 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }, smoothOnly],
   uncertainty: {
     fraction: 0.25,
     note: 'Incropera et al. (§8.5): errors as large as 25 % (wording from memory).',
@@ -256,7 +263,8 @@ const siederTate: Method = {
     const Pr = input.number('Pr');
     const LD = optionalLengthRatio(input);
     const { Nu, flags } = turbulentLength(input, siederTateNusselt(Re, Pr, input.number('viscosity_ratio')), LD);
-    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), LD), flags: [...rangeFlags(siederTate.ranges, input.values), ...flags] };
+    const friction = pipeFrictionFactor(Re, optionalRoughness(input), false);
+    return { outputs: withPressureDrop(Nu, friction.f, LD), flags: [...rangeFlags(siederTate.ranges, input.values), ...flags, ...friction.flags] };
   },
 };
 
@@ -278,30 +286,62 @@ const gnielinski: Method = {
   id: 'gnielinski',
   configuration: CONFIGURATION,
   kind: 'correlation',
-  title: 'Gnielinski (transitional and turbulent, with Petukhov friction factor)',
+  title: 'Gnielinski (transitional and turbulent; smooth or rough tubes)',
   description:
-    'Fully developed transitional and turbulent flow in a smooth tube, built on the Petukhov friction factor f = (0.790 ln Re − 1.64)^−2. More accurate than Dittus–Boelter and valid down to Re = 3000. Undefined (an input error) for Re ≤ 1000.',
+    "Transitional and turbulent flow in a tube. Re ≥ 1e4: Gnielinski's correlation with the Petukhov friction factor for a smooth tube, or the Colebrook f when relative_roughness is given (the rough-tube use the source allows). 2300 < Re < 1e4: Gnielinski's intermittency blend Nu = (1 − γ)·Nu_lam(2300) + γ·Nu_turb(1e4), γ = (Re − 2300)/7700, with his laminar composite (fully developed 3.66 / 4.354 by wall_condition; with short_tube_correction the mean over L/D) and this method's own turbulent value at Re = 1e4, so there is no gap between the laminar and turbulent ranges. Below Re = 2300 his laminar composite, flagged.",
   equation:
-    '\\mathrm{Nu}_D = \\frac{(f/8)(\\mathrm{Re}_D - 1000)\\mathrm{Pr}}{1 + 12.7\\,(f/8)^{1/2}\\left(\\mathrm{Pr}^{2/3} - 1\\right)},\\quad f = (0.790\\ln\\mathrm{Re}_D - 1.64)^{-2}',
-  inputs: [ReInput, PrInput, lengthInput(false), shortTubeInput],
-  outputs: turbulentOutputs,
-  ranges: [...gnielinskiRanges, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }],
+    '\\mathrm{Nu}_D = \\frac{(f/8)(\\mathrm{Re}_D - 1000)\\mathrm{Pr}}{1 + 12.7\\,(f/8)^{1/2}\\left(\\mathrm{Pr}^{2/3} - 1\\right)}\\ (\\mathrm{Re}_D \\ge 10^4),\\quad f = (0.790\\ln\\mathrm{Re}_D - 1.64)^{-2}\\ \\text{or}\\ \\frac{1}{\\sqrt f} = -2\\log_{10}\\left(\\frac{\\varepsilon/D}{3.7} + \\frac{2.51}{\\mathrm{Re}_D\\sqrt f}\\right);\\quad \\mathrm{Nu}_D = (1 - \\gamma)\\,\\mathrm{Nu}_{lam,2300} + \\gamma\\,\\mathrm{Nu}_{turb,10^4},\\ \\gamma = \\frac{\\mathrm{Re}_D - 2300}{10^4 - 2300}\\ (2300 < \\mathrm{Re}_D < 10^4)',
+  inputs: [ReInput, PrInput, lengthInput(false), shortTubeInput, roughnessInput, wallConditionInput],
+  outputs: [
+    ...outputs('Petukhov for smooth tubes, Colebrook (1939) with relative_roughness; 64/Re below Re = 2300'),
+    { name: 'intermittency', description: 'γ of the transition blend (2300 < Re < 1e4 only)', unit: '1' },
+  ],
+  ranges: [
+    { input: 'Re', min: TRANSITION_RE.laminar, max: PETUKHOV_RE_RANGE.max, note: 'transitional (blend) and turbulent flow' },
+    { input: 'Pr', min: 0.5, max: 2000 },
+    { input: 'relative_roughness', max: 0.05, note: 'Colebrook; flagged too where f/f_smooth > 4, past which roughness stops raising h (Norris 1971, from memory)' },
+    { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10 (in the blend: below the laminar entry length at Re = 2300) unless short_tube_correction' },
+  ],
   uncertainty: {
     fraction: 0.1,
-    note: 'Incropera et al. (§8.5): errors reduced to less than 10 % compared with Dittus–Boelter (wording from memory).',
+    note: 'Incropera et al. (§8.5): errors reduced to less than 10 % compared with Dittus–Boelter (wording from memory); the transition range and rough walls are less certain.',
   },
   source:
-    'Gnielinski, V. (1976) Int. Chem. Eng. 16:359–368, with Petukhov, B.S. (1970) Adv. Heat Transfer 6:503–564; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 8.62 and 8.21',
-  version: 2,
+    "Gnielinski, V. (1976) Int. Chem. Eng. 16:359–368, with Petukhov, B.S. (1970) Adv. Heat Transfer 6:503–564 (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 8.62 and 8.21; the Moody/Colebrook f for rough tubes as Incropera allows there, from memory); Colebrook, C.F. (1939) J. Inst. Civil Eng. 11:133–156; transition: Gnielinski, V. (1995) Forsch. Ingenieurwes. 61:240–248 and (2013) On heat transfer in tubes, Int. J. Heat Mass Transfer 63:134–140, with his laminar composite of VDI Heat Atlas, 2nd ed. (2010), ch. G1 (from memory)",
+  version: 3,
   evaluate(raw) {
     const input = readInputs(gnielinski, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
-    const f = petukhovFrictionFactor(Re);
     const LD = optionalLengthRatio(input);
-    const { Nu, flags } = turbulentLength(input, gnielinskiNusselt(Re, Pr, f), LD);
-    return { outputs: withPressureDrop(Nu, f, LD), flags: [...rangeFlags(gnielinski.ranges, input.values), ...flags] };
+    const roughness = optionalRoughness(input);
+    const condition = input.string('wall_condition') as WallCondition;
+    const ranges = rangeFlags(gnielinski.ranges, input.values);
+    if (Re >= TRANSITION_RE.turbulent) {
+      const friction = pipeFrictionFactor(Re, roughness, true);
+      const { Nu, flags } = turbulentLength(input, gnielinskiNusselt(Re, Pr, friction.f), LD);
+      return { outputs: withPressureDrop(Nu, friction.f, LD), flags: unique([...ranges, ...flags, ...friction.flags]) };
+    }
+    // The laminar part of the blend is fully developed unless the short-tube mean is asked for.
+    const corrected = input.boolean('short_tube_correction');
+    if (corrected && LD === undefined) throw new InputError('short_tube_correction needs L_over_D');
+    const laminarEntry = corrected ? undefined : laminarEntryFlag(TRANSITION_RE.laminar, Pr, LD);
+    if (Re <= TRANSITION_RE.laminar) {
+      const Nu = gnielinskiLaminarMean(Re, Pr, corrected ? LD : undefined, condition);
+      const entry = corrected ? undefined : laminarEntryFlag(Re, Pr, LD);
+      return { outputs: withPressureDrop(Nu, laminarFrictionFactor(Re), LD), flags: unique([...ranges, ...(entry ? [entry] : [])]) };
+    }
+    const atTurbulent = pipeFrictionFactor(TRANSITION_RE.turbulent, roughness, true);
+    const turbulent = turbulentLength(input, gnielinskiNusselt(TRANSITION_RE.turbulent, Pr, atTurbulent.f), LD).Nu;
+    const laminar = gnielinskiLaminarMean(TRANSITION_RE.laminar, Pr, corrected ? LD : undefined, condition);
+    const g = intermittency(Re);
+    const friction = pipeFrictionFactor(Re, roughness, false);
+    const Nu = (1 - g) * laminar + g * turbulent;
+    const flags = [...ranges, ...atTurbulent.flags, ...friction.flags, ...(laminarEntry ? [laminarEntry] : [])];
+    return { outputs: { ...withPressureDrop(Nu, friction.f, LD), intermittency: g }, flags: unique(flags) };
   },
 };
+
+const unique = (flags: string[]) => [...new Set(flags)];
 
 export const pipeMethods: Method[] = [laminarDeveloped, hausen, siederTateLaminar, dittusBoelter, siederTate, gnielinski];
