@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { FONT_MONO, FONT_SANS, PALETTE, SERIES_COLOURS } from '../web/src/lib/theme.js';
 import { buildChartOption, SERIES_COLOURS as CHART_COLOURS } from '../web/src/lib/chart-option.js';
 import { buildCompareOption } from '../web/src/lib/compare-chart.js';
+import { makeQuantities } from '../web/src/lib/units.js';
 
 const css = readFileSync(new URL('../web/src/styles.css', import.meta.url), 'utf8');
 const main = readFileSync(new URL('../web/src/main.tsx', import.meta.url), 'utf8');
@@ -20,7 +21,10 @@ describe('the theme', () => {
 
   it('draws charts and comparison charts in the theme', () => {
     expect(CHART_COLOURS).toEqual(SERIES_COLOURS);
-    const option = buildChartOption({ x: 'Re', y: 'Nu', total: 1, downsampled: false, series: [{ name: 'm', method: 'm', points: [[1, 2, 0]] }], uncertainty: { m: 0.1 } }, { xLog: true, yLog: true, bandMethod: null }) as { textStyle: { fontFamily: string } };
+    const option = buildChartOption(
+      { x: 'Re', y: 'Nu', total: 1, downsampled: false, series_by: 'method', series: [{ name: 'm', method: 'm', points: [[1, 2, 0]] }], uncertainty: { m: 0.1 }, flag_details: [], left_out: [] },
+      { xLog: true, yLog: true, bandMethod: null, quantities: makeQuantities([], 'K') },
+    ) as { textStyle: { fontFamily: string } };
     expect(option.textStyle.fontFamily).toBe(FONT_SANS);
     const compare = buildCompareOption([{ method: 'm', inputs: { Re: 1 }, inputs_b: { Re: 1 }, a: 1, b: 2, rel_diff: 1 }], 'Re', 'Nu', { xLog: true }) as { textStyle: { fontFamily: string }; series: { color: string }[] };
     expect(compare.textStyle.fontFamily).toBe(FONT_SANS);

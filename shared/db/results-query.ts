@@ -1,17 +1,14 @@
-// The dashboard's reads of one run's results: a filtered, sorted page and chart data
-// downsampled to a bounded size (comparing two runs: compare-query.ts). Large finished
-// runs are read from their results cache (results-cache.ts), the rest straight off the JSONB
-// columns; both give the same rows in the same order. Names reach SQL only after they
+// The dashboard's reads of one run's results: a filtered, sorted page (chart data is in
+// chart-query.ts, which reads through the Source helpers exported here; comparing two
+// runs is compare-query.ts). Large finished runs are read from their results cache
+// (results-cache.ts), the rest straight off the JSONB columns; both give the same rows in the same order. Names reach SQL only after they
 // matched NAME_PATTERN and a column of the run; values always travel as parameters.
-import { getMethod } from '../physics/catalogue.js';
 import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import { getRun, type RunInfo } from './queries.js';
 import { CACHE_MIN_RESULTS, NAME_PATTERN, ensureCacheIndex, ensureResultsCache, scanRunColumns, type ResultsCache, type RunColumns } from './results-cache.js';
 import type { Store } from './store.js';
 
 export const MAX_PAGE_SIZE = 500;
-export const MAX_CHART_POINTS = 20_000;
-export const MAX_SERIES = 100;
 /** For runs still being written, names are read from this many rows (the cache reads all). */
 const COLUMN_SAMPLE = 20_000;
 
@@ -49,7 +46,7 @@ export interface ResultsPage {
 }
 
 /** How SQL reaches a run's values: through its cache table or through the JSONB columns. */
-interface Source {
+export interface Source {
   run: RunInfo;
   columns: RunColumns;
   cache?: ResultsCache;
@@ -58,14 +55,14 @@ interface Source {
   params: unknown[];
 }
 
-interface Expr {
+export interface Expr {
   sql: string;
   params: unknown[];
   /** Cache column, when the source is a cache. */
   column?: string;
 }
 
-async function openSource(store: Store, runId: number): Promise<Source> {
+export async function openSource(store: Store, runId: number): Promise<Source> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
   const cache = await ensureResultsCache(store, runId);
@@ -85,7 +82,7 @@ export async function getRunColumns(store: Store, runId: number): Promise<RunCol
   return (await openSource(store, runId)).columns;
 }
 
-function valueExpr(store: Store, src: Source, name: string): Expr {
+export function valueExpr(store: Store, src: Source, name: string): Expr {
   if (!NAME_PATTERN.test(name)) throw new InputError(`'${name}' is not a column name`);
   // An output wins over an input of the same name: it is what the method computed.
   if (src.cache) {
@@ -100,7 +97,7 @@ function valueExpr(store: Store, src: Source, name: string): Expr {
   throw new InputError(`run ${src.run.id} has no input or output '${name}'; it has: ${known.join(', ')}`);
 }
 
-function col(src: Source, what: 'seq' | 'point' | 'method' | 'flagged' | 'id'): string {
+export function col(src: Source, what: 'seq' | 'point' | 'method' | 'flagged' | 'id'): string {
   if (src.cache) return { seq: 'c.seq', point: 'c.point_idx', method: 'c.method_idx', flagged: 'c.flagged', id: 'c.result_id' }[what];
   return { seq: 'r.point_idx, r.method_idx', point: 'r.point_idx', method: 'r.method_idx', flagged: 'r.flagged', id: 'r.id' }[what];
 }
@@ -119,7 +116,7 @@ interface Conditions {
   filterExprs: Expr[];
 }
 
-function conditions(store: Store, src: Source, q: Pick<ResultsQuery, 'methods' | 'flagged' | 'filters'>): Conditions {
+export function conditions(store: Store, src: Source, q: Pick<ResultsQuery, 'methods' | 'flagged' | 'filters'>): Conditions {
   const out: Conditions = { sql: [...src.where], params: [...src.params], filterExprs: [] };
   if (q.methods?.length) {
     const idx = methodIndices(src.run, q.methods);
@@ -147,7 +144,7 @@ function conditions(store: Store, src: Source, q: Pick<ResultsQuery, 'methods' |
   return out;
 }
 
-const whereOf = (c: Conditions) => (c.sql.length ? ` where ${c.sql.join(' and ')}` : '');
+export const whereOf = (c: Conditions) => (c.sql.length ? ` where ${c.sql.join(' and ')}` : '');
 
 /**
  * One page of a run's results. Order: the sort key, then point, then method (descending
@@ -236,120 +233,6 @@ async function readRows(store: Store, ids: number[]): Promise<ResultPageRow[]> {
     const r = byId.get(id)!;
     return { id: Number(r.id), point: r.point_idx, method: r.method, inputs: JSON.parse(r.inputs), outputs: JSON.parse(r.outputs), flags: JSON.parse(r.flags) };
   });
-}
-
-export interface ChartQuery {
-  x: string;
-  y: string;
-  /** `method` (default) or an input name: one series per method and value of that input. */
-  series?: string;
-  methods?: string[];
-  filters?: RangeFilter[];
-  /** Upper bound on the points returned over all series (default 2000). */
-  max?: number;
-}
-
-export interface ChartSeries {
-  name: string;
-  method: string;
-  /** [x, y, flagged 0|1], sorted by x. */
-  points: [number, number, 0 | 1][];
-}
-
-export interface ChartData {
-  x: string;
-  y: string;
-  /** Results with both x and y, before downsampling. */
-  total: number;
-  downsampled: boolean;
-  series: ChartSeries[];
-  /** Stated uncertainty of each method, as a fraction. */
-  uncertainty: Record<string, number>;
-}
-
-/**
- * x–y data per series. When more than `max` results qualify, each series is cut into
- * buckets along x (logarithmic when every x is positive, as the charts are log-log) and
- * each bucket keeps its lowest and highest y: the envelope survives, the payload stays
- * at most `max` points however large the run.
- */
-export async function chartData(store: Store, runId: number, q: ChartQuery): Promise<ChartData> {
-  const max = Math.min(MAX_CHART_POINTS, Math.max(10, Math.floor(q.max ?? 2000)));
-  const src = await openSource(store, runId);
-  const d = store.dialect;
-  const cond = conditions(store, src, { methods: q.methods, filters: q.filters });
-  const x = valueExpr(store, src, q.x);
-  const y = valueExpr(store, src, q.y);
-  const bySeries = q.series && q.series !== 'method' ? valueExpr(store, src, q.series) : undefined;
-  const m = col(src, 'method');
-  const f = col(src, 'flagged');
-  const seriesSql = bySeries ? `${m} || '|' || ${d.labelText(bySeries.sql)}` : `${m}`;
-  const baseParams = [...(bySeries?.params ?? []), ...x.params, ...y.params, ...cond.params, ...x.params, ...y.params];
-  // Numbers only: a string or switch value cannot be plotted.
-  const numeric = (e: Expr) => d.isNumber(e.sql);
-  const base =
-    `select ${seriesSql} as s, ${m} as m, ${x.sql} as x, ${y.sql} as y, ${f} as f from ${src.from}` +
-    `${whereOf(cond)}${cond.sql.length ? ' and ' : ' where '}${numeric(x)} and ${numeric(y)}`;
-
-  const seriesRows = await d.all<{ s: string; m: number; n: number; lo: number; hi: number }>(
-    `with src as (${base}) select s, m, count(*) as n, min(x) as lo, max(x) as hi from src group by s, m order by m, s`,
-    baseParams,
-  );
-  if (seriesRows.length > MAX_SERIES) {
-    throw new InputError(`series by '${q.series}' gives ${seriesRows.length} series; at most ${MAX_SERIES} can be plotted`);
-  }
-  const total = seriesRows.reduce((a, s) => a + Number(s.n), 0);
-  const downsampled = total > max;
-  const points = new Map<string, [number, number, 0 | 1][]>();
-  if (!downsampled) {
-    const rows = await d.all<{ s: string; x: number; y: number; f: number }>(`${base} order by ${m}, x, y`, baseParams);
-    for (const r of rows) push(points, r.s, [r.x, r.y, r.f ? 1 : 0]);
-  } else {
-    const buckets = Math.max(1, Math.floor(max / (2 * seriesRows.length)));
-    const logX = seriesRows.every((s) => s.lo > 0);
-    const pos = logX ? '(ln(src.x) - ln(e.lo)) / (ln(e.hi) - ln(e.lo))' : '(src.x - e.lo) / (e.hi - e.lo)';
-    const bucketed =
-      `with src as (${base}), e as (select s, min(x) as lo, max(x) as hi from src group by s), ` +
-      `b as (select src.s, src.x, src.y, src.f, case when e.hi = e.lo then 0 else ${d.least(String(buckets - 1), d.floorInt(`${pos} * ${buckets}`))} end as k ` +
-      `from src join e on e.s = src.s) `;
-    const extremes = (which: 'min' | 'max') =>
-      d.all<{ s: string; k: number; x: number; y: number; f: number }>(`${bucketed} ${d.extremeRows('b', ['s', 'k'], 'y', which, ['s', 'k', 'x', 'y', 'f'])}`, baseParams);
-    const lows = await extremes('min');
-    const highs = await extremes('max');
-    const seen = new Set<string>();
-    for (const { s, k, x: xv, y: yv, f: fv } of [...lows, ...highs]) {
-      const key = `${s}\u0000${k}\u0000${xv}\u0000${yv}`;
-      if (seen.has(key)) continue;
-      seen.add(key);
-      push(points, s, [xv, yv, fv ? 1 : 0]);
-    }
-    for (const list of points.values()) list.sort((a, b) => a[0] - b[0] || a[1] - b[1]);
-  }
-
-  const uncertainty: Record<string, number> = {};
-  const series: ChartSeries[] = seriesRows.map((s) => {
-    const method = src.run.methods[s.m].id;
-    uncertainty[method] ??= methodUncertainty(src.run.configuration, method);
-    const value = bySeries ? String(s.s).slice(String(s.m).length + 1) : undefined;
-    return { name: bySeries ? `${method}, ${q.series} = ${value}` : method, method, points: points.get(String(s.s)) ?? [] };
-  });
-  return { x: q.x, y: q.y, total, downsampled, series, uncertainty };
-}
-
-function push<T>(map: Map<string, T[]>, key: unknown, value: T) {
-  const k = String(key);
-  const list = map.get(k);
-  if (list) list.push(value);
-  else map.set(k, [value]);
-}
-
-function methodUncertainty(configuration: string, method: string): number {
-  try {
-    return getMethod(configuration, method).uncertainty.fraction;
-  } catch (e) {
-    if (e instanceof InputError) return NaN; // a method since removed from the catalogue
-    throw e;
-  }
 }
 
 export { CACHE_MIN_RESULTS };

@@ -1,7 +1,7 @@
 // Values with units in study files ("25 mm", "80 degC", "1.5 L/min"), converted to the
 // SI unit of the named quantity with mathjs. A problem is thrown as a UnitError whose
 // message the study parser places at the value's line and column.
-import { unit, type Unit } from 'mathjs';
+import { bignumber, unit, type BigNumber, type Unit } from 'mathjs';
 import { findQuantity, type QuantitySpec } from '../physics/quantities.js';
 
 export class UnitError extends Error {
@@ -59,6 +59,30 @@ export function valueInUnit(siUnit: string, value: number | string, what = siUni
     throw new UnitError(`${JSON.stringify(value)} is below absolute zero (${si} K); plain numbers are kelvin`);
   }
   return finite(si, value);
+}
+
+/**
+ * Values written in `unitText` (a unit alone, as in a CSV header `[degC]`) converted to
+ * `siUnit`. mathjs reads and checks the unit once and gives the affine map si = a + b·v
+ * in exact decimal arithmetic (BigNumber), so 26.2 degC → 299.34999999999997 K agrees with
+ * unit(26.2, 'degC') to the last bit while a value costs one multiply and one add.
+ */
+export function converterToSI(siUnit: string, unitText: string, what = siUnit): (v: number) => number {
+  // Export headers write products with a middle dot (W/(m^2·K)); mathjs reads a space.
+  const si = siUnit.replace(/·/g, ' ');
+  let zero: Unit;
+  let one: Unit;
+  try {
+    zero = unit(bignumber(0), unitText);
+    one = unit(bignumber(1), unitText);
+  } catch (e) {
+    throw new UnitError(`cannot read '${unitText}' as a unit (${(e as Error).message})`);
+  }
+  if (!zero.equalBase(unit(si))) throw new UnitError(`'${unitText}' has the wrong dimension: expected ${what}`);
+  const a = zero.toNumeric(si) as BigNumber;
+  const b = (one.toNumeric(si) as BigNumber).minus(a);
+  const [offset, scale] = [a.toNumber(), b.toNumber()];
+  return offset === 0 ? (v) => v * scale : scale === 1 ? (v) => v + offset : (v) => offset + scale * v;
 }
 
 /** True when the text is a number followed by a unit that mathjs knows. */

@@ -53,21 +53,8 @@ export interface ResultsPage {
   rows: ResultRowDto[];
 }
 
-export interface ChartSeries {
-  name: string;
-  method: string;
-  points: [number, number, 0 | 1][];
-}
-
-export interface ChartData {
-  x: string;
-  y: string;
-  total: number;
-  downsampled: boolean;
-  series: ChartSeries[];
-  uncertainty: Record<string, number>;
-  measured?: { name: string; points: [number, number][]; mad: Record<string, number> };
-}
+// The chart API's shapes: one definition with the server (shared/chart/types.ts).
+export type { AxisFacts, ChartAxes, ChartData, ChartPoint, ChartSeries, FlagDetail, LeftOut, MeasuredOverlay, MeasuredRow } from '../../../shared/chart/types.js';
 
 export interface CompareRow {
   method: string;

@@ -2,6 +2,7 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import type { CompareRow } from '../api/types.js';
 import { SERIES_COLOURS, wrap } from './chart-option.js';
+import { escapeHtml } from './escape-html.js';
 import { formatNumber } from './format.js';
 import { FIGURE, FONT_SANS } from './theme.js';
 
@@ -31,7 +32,7 @@ export function buildCompareOption(
     textStyle: { fontFamily: FONT_SANS, color: FIGURE.text },
     grid: { left: 70, right: 24, top: look.title ? 78 : 36, bottom: look.title ? 86 : 56 },
     legend: { type: 'scroll', top: look.title ? 50 : 4 },
-    tooltip: { trigger: 'item', formatter: (p: { seriesName: string; value: number[] }) => `${p.seriesName}<br/>${x} = ${formatNumber(p.value[0])}<br/>Δ${output} = ${formatNumber(p.value[1], 3)} %` },
+    tooltip: { trigger: 'item', formatter: (p: { seriesName: string; value: number[] }) => `${escapeHtml(p.seriesName)}<br/>${escapeHtml(x)} = ${formatNumber(p.value[0])}<br/>Δ${escapeHtml(output)} = ${formatNumber(p.value[1], 3)} %` },
     xAxis: { type: look.xLog ? 'log' : 'value', name: look.xLabel ?? x, nameLocation: 'middle', nameGap: 28, scale: !look.xLog, axisLabel: { formatter: (v: number) => formatNumber(v, 3) } },
     yAxis: { type: 'value', name: `(b − a)/|a| of ${output}, %`, nameLocation: 'middle', nameGap: 52, axisLabel: { formatter: (v: number) => formatNumber(v, 3) } },
     series,
