@@ -21,6 +21,9 @@ pg_ctlcluster "$version" main status >/dev/null 2>&1 || pg_ctlcluster "$version"
 for _ in $(seq 1 30); do pg_isready -h 127.0.0.1 -q && break; sleep 1; done
 su postgres -c "psql -q -tAc \"select 1 from pg_roles where rolname='filmsweep'\"" | grep -q 1 ||
   su postgres -c "psql -q -c \"create role filmsweep login password 'filmsweep' createdb\"" >&2
+# Tests drop their databases WITH (FORCE); an autovacuum worker on one has no role of its
+# own, and terminating it needs pg_signal_backend (else: "must be a member of the role …").
+su postgres -c "psql -q -c 'grant pg_signal_backend to filmsweep'" >&2
 su postgres -c "psql -q -tAc \"select 1 from pg_database where datname='filmsweep_test'\"" | grep -q 1 ||
   su postgres -c "createdb -O filmsweep filmsweep_test" >&2
 

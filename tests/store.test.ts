@@ -22,12 +22,12 @@ import {
   resolveDbPath,
   resolveRunRef,
   ResultBatchEncoder,
-  chartData,
   queryResults,
   type EncodedBatch,
   type NewRunSpec,
   type Store,
 } from '../shared/db/index.js';
+import { chartData } from '../shared/db/chart-query.js';
 import { runTableName } from '../shared/db/result-table.js';
 import { InputError } from '../shared/physics/types.js';
 import { STORE_KINDS, createTestDatabase, type TestDatabase } from './helpers/stores.js';

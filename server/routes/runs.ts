@@ -6,7 +6,8 @@ import { z } from 'zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { getRun, getRunDetails, getRunSource, getRunSummary, resumeRefusal, RUN_STATUSES } from '../../shared/db/index.js';
 import { getMeasurement } from '../../shared/db/measurements.js';
-import { chartData, getRunColumns, MAX_PAGE_SIZE, NAME_PATTERN, queryResults, type RangeFilter } from '../../shared/db/results-query.js';
+import { chartAxes, chartData, MAX_CHART_POINTS, measuredOverlay } from '../../shared/db/chart-query.js';
+import { getRunColumns, MAX_PAGE_SIZE, NAME_PATTERN, queryResults, type RangeFilter } from '../../shared/db/results-query.js';
 import { getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
 import { runRowSource } from '../../shared/db/run-rows.js';
 import { exportFormats, makeUnitLookup, mediaTypes, OutputClosedError, runMethodSpecs, writeRunExport, xlsxTooLong, type ExportFormat } from '../../shared/export/index.js';
@@ -15,7 +16,6 @@ import { processAlive } from '../../shared/runner/index.js';
 import type { AppContext } from '../context.js';
 import { HttpError, notFound } from '../http-error.js';
 import { parse } from '../middleware/validate.js';
-import { measuredOverlay } from '../overlay.js';
 import { pushRun, pushSchema } from '../push.js';
 import { linkBase } from './links.js';
 import { idParams } from './users.js';
@@ -73,8 +73,9 @@ const chartQuery = z
     y: name,
     series: z.union([z.literal('method'), name]).default('method'),
     method: list.optional(),
+    flagged: z.enum(['any', 'yes', 'no']).default('any'),
     filter: filters,
-    max: z.coerce.number().int().min(10).max(20_000).default(2000),
+    max: z.coerce.number().int().min(10).max(MAX_CHART_POINTS).default(2000),
     measurement: z.coerce.number().int().positive().optional(),
   })
   .strict();
@@ -122,11 +123,20 @@ export function runsRouter(ctx: AppContext): Router {
     const q = parse(chartQuery, req.query, 'query');
     const run = await getDashboardRun(ctx.store, id);
     if (!run) throw notFound(`run ${id}`);
-    const chart = await chartData(ctx.store, id, { x: q.x, y: q.y, series: q.series, methods: q.method, filters: q.filter, max: q.max });
+    const chart = await chartData(ctx.store, id, { x: q.x, y: q.y, series: q.series, methods: q.method, flagged: q.flagged, filters: q.filter, max: q.max });
     if (q.measurement === undefined) return res.json(chart);
     const m = await getMeasurement(ctx.store, q.measurement);
     if (!m || (await getStudyName(ctx.store, m.measurement.study_id)) !== run.study) throw notFound(`measurement ${q.measurement} of study ${run.study}`);
-    res.json({ ...chart, measured: await measuredOverlay(ctx.store, run, { name: m.measurement.name, rows: m.rows }, q.x, q.y) });
+    res.json({ ...chart, measured: await measuredOverlay(ctx.store, run, { name: m.measurement.name, rows: m.rows }, q.x, q.y, q.series === 'method' ? undefined : q.series) });
+  });
+
+  // Facts about every input and output (swept or fixed, range, distinct values) for the
+  // chart's axis and series choices.
+  r.get('/:id/chart/axes', async (req, res) => {
+    const { id } = parse(idParams, req.params, 'params');
+    parse(z.object({}).strict(), req.query, 'query');
+    if (!(await getDashboardRun(ctx.store, id))) throw notFound(`run ${id}`);
+    res.json(await chartAxes(ctx.store, id));
   });
 
   r.get('/:id/export', async (req, res) => {

@@ -123,7 +123,12 @@ export async function convertLegacyRun(store: Store, runId: number, options: Con
   const d = store.dialect;
   const [run] = await d.all<{ status: string; methods: string; results_table: number }>('select status, methods, results_table from runs where id = ?', [runId]);
   if (!run) return false;
-  if (Number(run.results_table) === 1) return true;
+  if (Number(run.results_table) === 1) {
+    // Switched over already; JSON rows left by a deletion that was stopped go now.
+    const [left] = await d.all<{ top: number | null }>('select max(point_idx) as top from results where run_id = ?', [runId]);
+    if (left?.top !== null && left?.top !== undefined) await deleteJsonRows(store, runId, Number(left.top), options.signal);
+    return true;
+  }
   if (!options.force && (run.status === 'running' || run.status === 'queued')) return false;
   const methodIds = (JSON.parse(run.methods) as MethodVersion[]).map((m) => m.id);
   const M = methodIds.length;
@@ -163,15 +168,21 @@ export async function convertLegacyRun(store: Store, runId: number, options: Con
     }
     await db.updateTable('runs').set({ results_table: 1 }).where('id', '=', runId).execute();
   });
-  // New readers read the table now; once those that started before have finished, the JSON
-  // rows go, in steps too.
-  await noReaders(store, runId, options.signal);
-  for (let from = 0; top !== null && from <= Number(top) && !options.signal?.aborted; from += STEP_POINTS) {
-    await d.run('delete from results where run_id = ? and point_idx >= ? and point_idx < ?', [runId, from, from + STEP_POINTS]);
-    await d.run('delete from points where run_id = ? and idx >= ? and idx < ?', [runId, from, from + STEP_POINTS]);
+  if (top !== null) await deleteJsonRows(store, runId, Number(top), options.signal);
+  return true;
+}
+
+/**
+ * Deletes a switched-over run's JSON rows, in steps: once the readers of this process that
+ * started before the switch have finished (new readers read the table).
+ */
+async function deleteJsonRows(store: Store, runId: number, top: number, signal?: AbortSignal): Promise<void> {
+  await noReaders(store, runId, signal);
+  for (let from = 0; from <= top && !signal?.aborted; from += STEP_POINTS) {
+    await store.dialect.run('delete from results where run_id = ? and point_idx >= ? and point_idx < ?', [runId, from, from + STEP_POINTS]);
+    await store.dialect.run('delete from points where run_id = ? and idx >= ? and idx < ?', [runId, from, from + STEP_POINTS]);
     await nextTurn();
   }
-  return true;
 }
 
 /** Conversions running in the background, per store and run. */

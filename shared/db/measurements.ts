@@ -57,3 +57,9 @@ export async function getMeasurement(store: Store, id: number): Promise<{ measur
   const values = JSON.parse(r.rows) as Record<string, number>[];
   return { measurement: toMeasurement(r), rows: values.map((v) => ({ values: v })) };
 }
+
+/** The configurations a study's versions use (a measurement's names are read against their methods). */
+export async function studyConfigurations(store: Store, studyId: number): Promise<string[]> {
+  const rows = await store.db.selectFrom('study_versions').select('configuration').distinct().where('study_id', '=', studyId).execute();
+  return rows.map((r) => r.configuration);
+}

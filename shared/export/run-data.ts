@@ -1,7 +1,8 @@
-// What the store's queries of one run give, as the API sends it and the web app reads it:
-// the per-method summary, the run's input and output names, a page of results, chart
-// data and the comparison of two runs. Pure types (importing only types), so the browser
-// bundle shares the one definition with shared/db (whose code it must not import).
+// What the store's queries of runs give, as the API sends it and the web app reads it: the
+// per-method summary, a run's input and output names, a page of results and the
+// comparison of two runs (chart data: shared/chart/types.ts). Pure types (importing only
+// types), so the browser bundle shares the one definition with shared/db (whose code it
+// must not import).
 import type { Inputs, Outputs } from '../physics/types.js';
 import type { RunInfo } from './run-info.js';
 
@@ -41,27 +42,12 @@ export interface ResultsPage {
   rows: ResultPageRow[];
 }
 
-export interface ChartSeries {
-  name: string;
-  method: string;
-  /** [x, y, flagged 0|1], sorted by x. */
-  points: [number, number, 0 | 1][];
-}
-
-export interface ChartData {
-  x: string;
-  y: string;
-  /** Results with both x and y, before downsampling. */
-  total: number;
-  downsampled: boolean;
-  series: ChartSeries[];
-  /** Stated uncertainty of each method, as a fraction. */
-  uncertainty: Record<string, number>;
-}
-
 export interface CompareRow {
   method: string;
+  /** Run a's point. */
   inputs: Inputs;
+  /** Run b's point (differs from run a's in inputs not paired by, or within the tolerance). */
+  inputs_b: Inputs;
   a: number | null;
   b: number | null;
   /** (b − a)/|a|; null when either is missing or a is 0. */
@@ -73,11 +59,19 @@ export interface Comparison<Run extends RunInfo = RunInfo> {
   a: Run;
   b: Run;
   output: string;
+  /** Inputs the points were paired by, and the relative tolerance on numbers (0: exact). */
+  by: string[];
+  tolerance: number;
   /** Pairs shown by `changed` (before paging). */
   total: number;
+  /** Paired results, changed or not. */
+  paired: number;
   /** Pairs whose value differs. */
   changed: number;
+  /** Results of run a (b) without a partner. */
   only_a: number;
   only_b: number;
+  /** The same counts for points: a point pairs when its chosen inputs match. */
+  points: { paired: number; only_a: number; only_b: number };
   rows: CompareRow[];
 }

@@ -31,12 +31,6 @@ export const derivedUnits: Readonly<Record<string, string>> = {
   mass_flow: 'kg/s',
 };
 
-/**
- * Suffixes the design layer (shared/design/names.ts) appends to a name: band ends and
- * the achievable range of a target out of reach. They carry the unit of the name itself.
- */
-const SAME_UNIT_SUFFIXES = ['_low', '_high', '_min', '_max'];
-
 /** SI unit of a name (`1` for dimensionless), or undefined when nothing declares it. */
 export type UnitLookup = (name: string) => string | undefined;
 
@@ -52,12 +46,24 @@ export function makeUnitLookup(methods: readonly Pick<MethodInfo, 'inputs' | 'ou
     }
   }
   const direct = (name: string) => declared.get(name) ?? table.get(name);
-  return (name) => {
-    const unit = direct(name);
-    if (unit !== undefined) return unit;
-    const suffix = SAME_UNIT_SUFFIXES.find((s) => name.endsWith(s));
-    return suffix ? direct(name.slice(0, -suffix.length)) : undefined;
-  };
+  // `h_low`/`h_high` (a band), `h_min`/`h_max` (a range) carry the unit of `h`.
+  return (name) => direct(name) ?? (BOUND_SUFFIX.test(name) ? direct(name.replace(BOUND_SUFFIX, '')) : undefined);
+}
+
+/**
+ * Suffixes of names that are bounds of another quantity and share its unit: the design
+ * layer's band ends and a target's achievable range (shared/design/names.ts).
+ */
+export const BOUND_SUFFIX = /_(low|high|min|max)$/;
+
+/**
+ * Whether a name is an absolute temperature (shown in °C or K by choice): its unit is K
+ * and its name says temperature (`outlet_temperature`, `surface_temperature_outlet`). A
+ * temperature difference (`log_mean_temperature_difference`) is K in either choice and
+ * never offset.
+ */
+export function isAbsoluteTemperature(name: string, unit: string | undefined): boolean {
+  return unit === 'K' && /temperature/.test(name) && !/difference/.test(name);
 }
 
 /** The unit as headers show it: `-` for dimensionless. */

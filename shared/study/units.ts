@@ -7,18 +7,15 @@
 // study would pay for nothing. Its single-file build (`mathjs/lib/browser/math.js`, the
 // same library, about 0.1 s) is loaded synchronously through require.
 import { createRequire } from 'node:module';
-import type { Unit } from 'mathjs';
+import type { BigNumber, Unit } from 'mathjs';
 import { findQuantity, type QuantitySpec } from '../physics/quantities.js';
 
-let mathjs: typeof import('mathjs') | undefined;
-
-/** mathjs's `unit('25 mm')` or `unit(0, 'degC')`. */
-function unit(text: string): Unit;
-function unit(value: number, name: string): Unit;
-function unit(...args: [string] | [number, string]): Unit {
-  mathjs ??= createRequire(import.meta.url)('mathjs/lib/browser/math.js') as typeof import('mathjs');
-  return (mathjs.unit as (...a: unknown[]) => Unit)(...args);
-}
+type MathJs = typeof import('mathjs');
+let mathjs: MathJs | undefined;
+const math = (): MathJs => (mathjs ??= createRequire(import.meta.url)('mathjs/lib/browser/math.js') as MathJs);
+/** mathjs's `unit` and `bignumber`, loading mathjs on the first call. */
+const unit = ((...args: unknown[]) => (math().unit as (...a: unknown[]) => Unit)(...args)) as MathJs['unit'];
+const bignumber = ((...args: unknown[]) => (math().bignumber as (...a: unknown[]) => BigNumber)(...args)) as MathJs['bignumber'];
 
 export class UnitError extends Error {
   constructor(message: string) {
@@ -75,6 +72,30 @@ export function valueInUnit(siUnit: string, value: number | string, what = siUni
     throw new UnitError(`${JSON.stringify(value)} is below absolute zero (${si} K); plain numbers are kelvin`);
   }
   return finite(si, value);
+}
+
+/**
+ * Values written in `unitText` (a unit alone, as in a CSV header `[degC]`) converted to
+ * `siUnit`. mathjs reads and checks the unit once and gives the affine map si = a + b·v
+ * in exact decimal arithmetic (BigNumber), so 26.2 degC → 299.34999999999997 K agrees with
+ * unit(26.2, 'degC') to the last bit while a value costs one multiply and one add.
+ */
+export function converterToSI(siUnit: string, unitText: string, what = siUnit): (v: number) => number {
+  // Export headers write products with a middle dot (W/(m^2·K)); mathjs reads a space.
+  const si = siUnit.replace(/·/g, ' ');
+  let zero: Unit;
+  let one: Unit;
+  try {
+    zero = unit(bignumber(0), unitText);
+    one = unit(bignumber(1), unitText);
+  } catch (e) {
+    throw new UnitError(`cannot read '${unitText}' as a unit (${(e as Error).message})`);
+  }
+  if (!zero.equalBase(unit(si))) throw new UnitError(`'${unitText}' has the wrong dimension: expected ${what}`);
+  const a = zero.toNumeric(si) as BigNumber;
+  const b = (one.toNumeric(si) as BigNumber).minus(a);
+  const [offset, scale] = [a.toNumber(), b.toNumber()];
+  return offset === 0 ? (v) => v * scale : scale === 1 ? (v) => v + offset : (v) => offset + scale * v;
 }
 
 /** True when the text is a number followed by a unit that mathjs knows. */

@@ -1,7 +1,7 @@
 // `npm run bench`: throughput figures, reported as ratios measured in one run (the
 // machine is shared and noisy, so absolute numbers mean little on their own).
 // Not a test: it asserts nothing and CI does not run it. Sections can be picked:
-//   npm run bench -- startup similarity correlations e2e sweep workers api queue design
+//   npm run bench -- startup similarity correlations e2e sweep workers api queue design web
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -12,6 +12,7 @@ import { benchApi } from './api.js';
 import { benchQueue } from './queue.js';
 import { benchStartup } from './startup.js';
 import { benchDesign } from './design.js';
+import { benchWeb } from './web.js';
 import type { BenchContext } from './timing.js';
 
 const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
@@ -24,6 +25,7 @@ const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
   api: benchApi,
   queue: benchQueue,
   design: benchDesign,
+  web: benchWeb,
 };
 
 async function main() {

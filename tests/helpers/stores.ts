@@ -39,8 +39,20 @@ export async function createTestDatabase(kind: StoreKind, name = 'test'): Promis
   return {
     kind,
     location: url.toString(),
-    // WITH (FORCE): connections a failed test left open do not keep the database alive.
-    drop: () => admin((c) => c.query(`drop database if exists ${database} with (force)`)).then(() => undefined),
+    // WITH (FORCE): connections a failed test left open do not keep the database alive. An
+    // autovacuum worker that just started on it can refuse the termination (without
+    // pg_signal_backend, which .ci/services.sh grants): try again shortly.
+    drop: async () => {
+      for (let attempt = 1; ; attempt++) {
+        try {
+          await admin((c) => c.query(`drop database if exists ${database} with (force)`));
+          return;
+        } catch (e) {
+          if (attempt >= 5 || !/must be a member of the role/.test((e as Error).message)) throw e;
+          await new Promise((r) => setTimeout(r, 300 * attempt));
+        }
+      }
+    },
   };
 }
 

@@ -1,28 +1,25 @@
 // Routes and providers. Hash routing, so the built app works from any static server
 // and mailed links (/#/invite/<token>) need no server-side fallback.
 import { MutationCache, QueryCache, QueryClient, QueryClientProvider } from '@tanstack/react-query';
+import type { ComponentType } from 'react';
 import { createHashRouter, Navigate, RouterProvider } from 'react-router-dom';
 import { ApiError } from './api/client.js';
-import { sessionKey } from './api/session.js';
+import { sessionEnded } from './api/session.js';
 import { Layout } from './components/Layout.js';
 import { RequireRole } from './components/RequireRole.js';
+import { Loading } from './components/States.js';
+import type { Permission } from './lib/roles.js';
 import { SignInPage } from './routes/SignInPage.js';
 import { StudiesPage } from './routes/StudiesPage.js';
-import { StudyPage } from './routes/StudyPage.js';
-import { RunPage } from './routes/RunPage.js';
-import { ComparePage } from './routes/ComparePage.js';
-import { CataloguePage } from './routes/CataloguePage.js';
-import { MeasurementPage } from './routes/MeasurementPage.js';
-import { TeamPage } from './routes/TeamPage.js';
-import { TokensPage } from './routes/TokensPage.js';
-import { OutboxPage } from './routes/OutboxPage.js';
-import { InvitePage } from './routes/InvitePage.js';
-import { ResetPasswordPage } from './routes/ResetPasswordPage.js';
 import { NotFoundPage } from './routes/NotFoundPage.js';
 
+// Every page but the two most opened ones (sign-in, studies) is its own chunk, loaded when
+// it is opened: ECharts comes with the run, comparison and measurement pages, KaTeX with
+// the catalogue, and the first page loads neither (the bundle test measures it).
+const page = <K extends string>(load: () => Promise<Record<K, ComponentType>>, name: K) => async () => ({ Component: (await load())[name] });
 // A 401 anywhere means the session ended (expired, signed out elsewhere, user disabled).
 function onAuthError(error: unknown) {
-  if (error instanceof ApiError && error.status === 401) queryClient.setQueryData(sessionKey, null);
+  if (error instanceof ApiError && error.status === 401) sessionEnded(queryClient);
 }
 
 const queryClient = new QueryClient({
@@ -39,25 +36,36 @@ const queryClient = new QueryClient({
 
 const router = createHashRouter([
   { path: '/sign-in', element: <SignInPage /> },
-  { path: '/invite/:token', element: <InvitePage /> },
-  { path: '/reset/:token', element: <ResetPasswordPage /> },
+  { path: '/invite/:token', lazy: page(() => import('./routes/InvitePage.js'), 'InvitePage') },
+  { path: '/reset/:token', lazy: page(() => import('./routes/ResetPasswordPage.js'), 'ResetPasswordPage') },
   {
     element: <Layout />,
+    hydrateFallbackElement: <Loading what="Opening the page" />,
     children: [
       { index: true, element: <Navigate to="/studies" replace /> },
       { path: '/studies', element: <StudiesPage /> },
-      { path: '/studies/:id', element: <StudyPage /> },
-      { path: '/runs/:id', element: <RunPage /> },
-      { path: '/compare', element: <ComparePage /> },
-      { path: '/catalogue', element: <CataloguePage /> },
-      { path: '/measurements/:id', element: <MeasurementPage /> },
-      { path: '/team', element: <RequireRole permission="team"><TeamPage /></RequireRole> },
-      { path: '/tokens', element: <RequireRole permission="tokens"><TokensPage /></RequireRole> },
-      { path: '/outbox', element: <RequireRole permission="outbox"><OutboxPage /></RequireRole> },
+      { path: '/studies/:id', lazy: page(() => import('./routes/StudyPage.js'), 'StudyPage') },
+      { path: '/runs/:id', lazy: page(() => import('./routes/RunPage.js'), 'RunPage') },
+      { path: '/compare', lazy: page(() => import('./routes/ComparePage.js'), 'ComparePage') },
+      { path: '/catalogue', lazy: page(() => import('./routes/CataloguePage.js'), 'CataloguePage') },
+      { path: '/measurements/:id', lazy: page(() => import('./routes/MeasurementPage.js'), 'MeasurementPage') },
+      { path: '/team', lazy: async () => ({ Component: guarded('team', (await import('./routes/TeamPage.js')).TeamPage) }) },
+      { path: '/tokens', lazy: async () => ({ Component: guarded('tokens', (await import('./routes/TokensPage.js')).TokensPage) }) },
+      { path: '/outbox', lazy: async () => ({ Component: guarded('outbox', (await import('./routes/OutboxPage.js')).OutboxPage) }) },
       { path: '*', element: <NotFoundPage /> },
     ],
   },
 ]);
+
+function guarded(permission: Permission, Page: ComponentType): ComponentType {
+  return function Guarded() {
+    return (
+      <RequireRole permission={permission}>
+        <Page />
+      </RequireRole>
+    );
+  };
+}
 
 export function App() {
   return (

@@ -1,11 +1,8 @@
 // Entry: fonts and styles ship with the app (nothing loads from the internet), then
-// the router and the query client.
+// the router and the query client. KaTeX's styles come with the catalogue's chunk.
 import './path-links.js';
-import '@fontsource/ibm-plex-sans/400.css';
-import '@fontsource/ibm-plex-sans/500.css';
-import '@fontsource/ibm-plex-sans/600.css';
-import '@fontsource/ibm-plex-mono/400.css';
-import 'katex/dist/katex.min.css';
+import '@fontsource-variable/atkinson-hyperlegible-next/wght.css';
+import '@fontsource-variable/atkinson-hyperlegible-mono/wght.css';
 import './styles.css';
 import { StrictMode } from 'react';
 import { createRoot } from 'react-dom/client';

@@ -1,7 +1,7 @@
 // Runs, their results, charts and exports: /api/runs…
 import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
 import { api, qs } from './client.js';
-import type { ChartData, MethodSummary, ResultsPage, RunColumns, RunInfo, RunStatus } from './types.js';
+import type { ChartAxes, ChartData, MethodSummary, ResultsPage, RunColumns, RunInfo, RunStatus } from './types.js';
 export type { ChartData, ChartSeries, ResultRowDto, ResultsPage } from './types.js';
 import { chartSearch, resultsSearch, type ChartQuery, type ResultQuery } from '../lib/result-query.js';
 
@@ -23,7 +23,7 @@ export function exportUrl(runId: number, format: string) {
   return `/api/runs/${runId}/export${qs({ format })}`;
 }
 
-const active = (s: RunStatus | undefined) => s === 'running' || s === 'queued';
+export const active = (s: RunStatus | undefined) => s === 'running' || s === 'queued';
 
 export function useRuns(filter: { study?: number; status?: RunStatus } = {}) {
   return useQuery({
@@ -58,6 +58,23 @@ export function useChart(id: number, query: ChartQuery | null, live: boolean) {
     placeholderData: keepPreviousData,
     refetchInterval: live ? 3000 : false,
   });
+}
+
+/** Facts about every input and output, for the chart's choices; refreshed while the run runs. */
+export function useChartAxes(id: number, live: boolean) {
+  return useQuery({
+    queryKey: ['chart-axes', id],
+    queryFn: () => api<ChartAxes>(`/api/runs/${id}/chart/axes`),
+    refetchInterval: live ? 3000 : false,
+  });
+}
+
+/** After a run ends: its table, chart and facts fetched once more, so they show the end state. */
+export function useRefreshRunData() {
+  const client = useQueryClient();
+  return (id: number) => {
+    for (const key of ['results', 'chart', 'chart-axes']) void client.invalidateQueries({ queryKey: [key, id] });
+  };
 }
 
 export function useSetReference(id: number) {

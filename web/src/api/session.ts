@@ -1,5 +1,5 @@
 // The signed-in user and the CSRF token: GET/POST/DELETE /api/session, password reset, invites.
-import { useMutation, useQuery, useQueryClient } from '@tanstack/react-query';
+import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { api, ApiError, setCsrfToken } from './client.js';
 import type { User } from './types.js';
 
@@ -10,17 +10,50 @@ export interface SessionResponse {
 
 export const sessionKey = ['session'] as const;
 
+// Whether this browser holds a session, remembered beside the (HttpOnly, unreadable)
+// cookie: a browser that never signed in, or signed out, does not ask the server, so the
+// sign-in page loads without a 401 in the console. A session that expired while the hint
+// says "signed in" costs one 401, after which the hint is gone. A cookie without the hint
+// (a browser that signed in before the hint existed) leads to the sign-in page once.
+const HINT = 'filmsweep.signed-in';
+
+function hinted(): boolean {
+  try {
+    return localStorage.getItem(HINT) === '1';
+  } catch {
+    return true; // storage blocked: ask the server
+  }
+}
+
+function remember(signedIn: boolean) {
+  try {
+    if (signedIn) localStorage.setItem(HINT, '1');
+    else localStorage.removeItem(HINT);
+  } catch {
+    // storage blocked: the probe runs every time instead
+  }
+}
+
+/** The session ended (signed out here, or a 401 elsewhere): forget it. */
+export function sessionEnded(client: QueryClient) {
+  remember(false);
+  setCsrfToken(null);
+  client.setQueryData(sessionKey, null);
+}
+
 /** The session, or null when signed out (401 is an answer here, not an error). */
 export function useSession() {
   return useQuery({
     queryKey: sessionKey,
     queryFn: async (): Promise<SessionResponse | null> => {
+      if (!hinted()) return null;
       try {
         const s = await api<SessionResponse>('/api/session');
         setCsrfToken(s.csrfToken);
         return s;
       } catch (e) {
         if (e instanceof ApiError && e.status === 401) {
+          remember(false);
           setCsrfToken(null);
           return null;
         }
@@ -35,6 +68,7 @@ export function useSession() {
 function useSignedIn() {
   const client = useQueryClient();
   return (s: SessionResponse) => {
+    remember(true);
     setCsrfToken(s.csrfToken);
     client.setQueryData(sessionKey, s);
   };
@@ -53,9 +87,8 @@ export function useSignOut() {
   return useMutation({
     mutationFn: () => api<void>('/api/session', { method: 'DELETE' }),
     onSettled: () => {
-      setCsrfToken(null);
       client.clear();
-      client.setQueryData(sessionKey, null);
+      sessionEnded(client);
     },
   });
 }

@@ -25,17 +25,15 @@ export type { Diagnostic } from '../../../shared/study/errors.js';
 
 // The run queries' shapes: the one definition in shared/export/run-data.ts, which
 // shared/db returns and the API sends.
-import type { ChartData as StoreChartData, Comparison, ResultPageRow } from '../../../shared/export/run-data.js';
-export type { ChartSeries, CompareRow, MethodSummary, ResultsPage, RunColumns } from '../../../shared/export/run-data.js';
+import type { Comparison, ResultPageRow } from '../../../shared/export/run-data.js';
+export type { CompareRow, MethodSummary, ResultsPage, RunColumns } from '../../../shared/export/run-data.js';
 
 /** A row of a results page. */
 export type ResultRowDto = ResultPageRow;
 
-/** Chart data, plus measured data when the request names a measurement (server/overlay.ts). */
-export interface ChartData extends StoreChartData {
-  measured?: { name: string; points: [number, number][]; mad: Record<string, number> };
-}
+// The chart API's shapes: one definition with the server (shared/chart/types.ts).
+export type { AxisFacts, ChartAxes, ChartData, ChartPoint, ChartSeries, FlagDetail, LeftOut, MeasuredOverlay, MeasuredRow } from '../../../shared/chart/types.js';
 
-/** The comparison of two runs, each with what the API adds to a run. */
-export type CompareResponse = Comparison<RunInfo>;
+/** The comparison of two runs, each with what the API adds to a run; with both study files when asked for (yaml=yes). */
+export type CompareResponse = Comparison<RunInfo> & { yaml?: { a: string; b: string } };
 

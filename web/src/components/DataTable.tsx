@@ -62,6 +62,10 @@ export function DataTable<T>({ columns, data, label, empty = 'Nothing here yet.'
         }),
   });
 
+  // Pinned while the table scrolls sideways (narrow screens): the method column, else the first.
+  const leafIds = table.getAllLeafColumns().map((c) => c.id);
+  const pinned = leafIds.includes('method') ? 'method' : leafIds[0];
+  const cellClass = (id: string, numeric?: boolean) => [numeric ? 'text-right' : '', id === pinned ? 'pinned' : ''].join(' ').trim() || undefined;
   const total = server ? server.total : data.length;
   const pageCount = Math.max(1, table.getPageCount());
   const pageIndex = table.getState().pagination.pageIndex;
@@ -78,7 +82,7 @@ export function DataTable<T>({ columns, data, label, empty = 'Nothing here yet.'
                   const sort = h.column.getIsSorted();
                   const meta = h.column.columnDef.meta as { numeric?: boolean } | undefined;
                   return (
-                    <th key={h.id} aria-sort={sort === 'asc' ? 'ascending' : sort === 'desc' ? 'descending' : undefined} className={meta?.numeric ? 'text-right' : ''}>
+                    <th key={h.id} aria-sort={sort === 'asc' ? 'ascending' : sort === 'desc' ? 'descending' : undefined} className={cellClass(h.column.id, meta?.numeric)}>
                       {h.isPlaceholder ? null : h.column.getCanSort() ? (
                         <button type="button" className="inline-flex items-center gap-1 hover:text-copper-700" onClick={h.column.getToggleSortingHandler()}>
                           {flexRender(h.column.columnDef.header, h.getContext())}
@@ -99,7 +103,7 @@ export function DataTable<T>({ columns, data, label, empty = 'Nothing here yet.'
                 {row.getVisibleCells().map((cell) => {
                   const meta = cell.column.columnDef.meta as { numeric?: boolean } | undefined;
                   return (
-                    <td key={cell.id} className={meta?.numeric ? 'num' : ''}>
+                    <td key={cell.id} className={[meta?.numeric ? 'num' : '', cell.column.id === pinned ? 'pinned' : ''].join(' ').trim() || undefined}>
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
                     </td>
                   );

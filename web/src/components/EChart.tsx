@@ -1,11 +1,31 @@
 // A React wrapper around one ECharts instance (SVG renderer), resized with its box.
+// `onPointer` reports the data coordinates under the pointer (for a crosshair read-out);
+// `onItemClick` reports a clicked data item.
 import { useEffect, useRef } from 'react';
 import type { EChartsCoreOption } from 'echarts/core';
 import { echarts } from './echarts-setup.js';
 
-export function EChart({ option, height = 460, label }: { option: EChartsCoreOption; height?: number; label: string }) {
+export interface PointerAt {
+  /** Plot frame (panel) under the pointer. */
+  grid: number;
+  x: number;
+  y: number;
+}
+
+interface Props {
+  option: EChartsCoreOption;
+  height?: number;
+  label: string;
+  testId?: string;
+  onPointer?: (at: PointerAt | null) => void;
+  onItemClick?: (item: { seriesIndex: number; dataIndex: number; data: unknown }) => void;
+}
+
+export function EChart({ option, height = 460, label, testId = 'chart', onPointer, onItemClick }: Props) {
   const box = useRef<HTMLDivElement>(null);
   const chart = useRef<echarts.ECharts | null>(null);
+  const handlers = useRef({ onPointer, onItemClick });
+  handlers.current = { onPointer, onItemClick };
 
   useEffect(() => {
     const el = box.current!;
@@ -13,6 +33,24 @@ export function EChart({ option, height = 460, label }: { option: EChartsCoreOpt
     chart.current = instance;
     const observer = new ResizeObserver(() => instance.resize());
     observer.observe(el);
+    const zr = instance.getZr();
+    const move = (e: { offsetX: number; offsetY: number }) => {
+      const report = handlers.current.onPointer;
+      if (!report) return;
+      const grids = ((instance.getOption()?.grid as unknown[] | undefined) ?? []).length;
+      for (let k = 0; k < grids; k++) {
+        const px = [e.offsetX, e.offsetY];
+        if (instance.containPixel({ gridIndex: k }, px)) {
+          const [x, y] = instance.convertFromPixel({ gridIndex: k }, px) as number[];
+          return report({ grid: k, x, y });
+        }
+      }
+      report(null);
+    };
+    const out = () => handlers.current.onPointer?.(null);
+    zr.on('mousemove', move);
+    zr.on('globalout', out);
+    instance.on('click', (p) => handlers.current.onItemClick?.({ seriesIndex: p.seriesIndex ?? -1, dataIndex: p.dataIndex, data: p.data }));
     return () => {
       observer.disconnect();
       instance.dispose();
@@ -24,5 +62,9 @@ export function EChart({ option, height = 460, label }: { option: EChartsCoreOpt
     chart.current?.setOption(option, { notMerge: true });
   }, [option]);
 
-  return <div ref={box} role="img" aria-label={label} style={{ height }} className="w-full" data-testid="chart" />;
+  useEffect(() => {
+    chart.current?.resize();
+  }, [height]);
+
+  return <div ref={box} role="img" aria-label={label} style={{ height }} className="w-full" data-testid={testId} />;
 }

@@ -1,7 +1,10 @@
 // The filter bar of a run: methods, flagged or not, and min/max on any input or
 // output. Edits are a draft until applied, so typing does not fire a query per key.
+// Bounds are typed in the units shown (°C when the user shows °C); the applied filter
+// is SI, as the API wants.
 import { useEffect, useId, useState, type FormEvent } from 'react';
-import { isBound, type FlaggedFilter, type RangeFilter } from '../lib/result-query.js';
+import { convertBound, isBound, type FlaggedFilter, type RangeFilter } from '../lib/result-query.js';
+import { labelWithUnit, type Quantities } from '../lib/units.js';
 
 export interface FilterState {
   methods: string[];
@@ -14,12 +17,17 @@ interface Props {
   onApply: (f: FilterState) => void;
   methods: string[];
   columns: { inputs: string[]; outputs: string[] };
+  quantities: Quantities;
 }
 
-export function ResultFilters({ value, onApply, methods, columns }: Props) {
+export function ResultFilters({ value, onApply, methods, columns, quantities }: Props) {
   const id = useId();
-  const [draft, setDraft] = useState(value);
-  useEffect(() => setDraft(value), [value]);
+  const shown = (f: FilterState): FilterState => ({
+    ...f,
+    filters: f.filters.map((r) => ({ ...r, min: convertBound(r.min, quantities(r.name).toDisplay), max: convertBound(r.max, quantities(r.name).toDisplay) })),
+  });
+  const [draft, setDraft] = useState(() => shown(value));
+  useEffect(() => setDraft(shown(value)), [value, quantities]);
   const names = [...columns.inputs, ...columns.outputs];
   const setRange = (i: number, patch: Partial<RangeFilter>) =>
     setDraft({ ...draft, filters: draft.filters.map((f, j) => (j === i ? { ...f, ...patch } : f)) });
@@ -27,7 +35,12 @@ export function ResultFilters({ value, onApply, methods, columns }: Props) {
 
   const submit = (e: FormEvent) => {
     e.preventDefault();
-    if (!invalid) onApply(draft);
+    if (!invalid) {
+      onApply({
+        ...draft,
+        filters: draft.filters.map((r) => ({ ...r, min: convertBound(r.min, quantities(r.name).fromDisplay), max: convertBound(r.max, quantities(r.name).fromDisplay) })),
+      });
+    }
   };
 
   return (
@@ -63,13 +76,14 @@ export function ResultFilters({ value, onApply, methods, columns }: Props) {
           <div key={i} className="flex flex-wrap items-center gap-2" data-testid="range-filter">
             <label className="sr-only" htmlFor={`${id}-name-${i}`}>quantity</label>
             <select id={`${id}-name-${i}`} className="input w-44" value={f.name} onChange={(e) => setRange(i, { name: e.target.value })}>
-              <optgroup label="inputs">{columns.inputs.map((n) => <option key={n} value={n}>{n}</option>)}</optgroup>
-              <optgroup label="outputs">{columns.outputs.map((n) => <option key={n} value={n}>{n}</option>)}</optgroup>
+              <optgroup label="inputs">{columns.inputs.map((n) => <option key={n} value={n}>{labelWithUnit(quantities(n))}</option>)}</optgroup>
+              <optgroup label="outputs">{columns.outputs.map((n) => <option key={n} value={n}>{labelWithUnit(quantities(n))}</option>)}</optgroup>
             </select>
             <label className="text-xs text-ink-600" htmlFor={`${id}-min-${i}`}>from</label>
             <input id={`${id}-min-${i}`} className="input w-32 font-mono" inputMode="decimal" value={f.min} aria-invalid={!isBound(f.min) || undefined} onChange={(e) => setRange(i, { min: e.target.value })} placeholder="min" />
             <label className="text-xs text-ink-600" htmlFor={`${id}-max-${i}`}>to</label>
             <input id={`${id}-max-${i}`} className="input w-32 font-mono" inputMode="decimal" value={f.max} aria-invalid={!isBound(f.max) || undefined} onChange={(e) => setRange(i, { max: e.target.value })} placeholder="max" />
+            <span className="text-xs text-ink-600" data-testid="range-unit">{quantities(f.name).unit === '-' ? '(dimensionless)' : quantities(f.name).unit}</span>
             <button type="button" className="btn btn-small" onClick={() => setDraft({ ...draft, filters: draft.filters.filter((_, j) => j !== i) })}>Remove</button>
           </div>
         ))}

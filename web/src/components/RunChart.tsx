@@ -1,118 +1,208 @@
-// The run's chart: any output against any input, linear or log axes, one series per
-// method or per value of a second input, flagged points marked, a method's ±uncertainty
-// band, measured data with each method's mean absolute deviation; exports as SVG/PNG.
+// The run's chart: any input or derived output on x and y (units on axes, tooltips and
+// exports), colour by method and a second input by line style or small multiples, log or
+// linear axes, flagged points with the range they broke, a method's ±uncertainty band,
+// measured data with each method's deviation, bias and mean absolute deviation and a
+// parity plot; a crosshair read-out; exports as SVG/PNG. Its choices belong to this run
+// (RunPage mounts a fresh one per run).
 import { useId, useMemo, useState } from 'react';
-import { CAUTION } from '../../../shared/export/caution.js';
 import type { Measurement } from '../api/measurements.js';
-import { useChart } from '../api/runs.js';
-import type { RunInfo } from '../api/types.js';
-import { buildChartOption, hiddenOnLogAxes, type ChartLook } from '../lib/chart-option.js';
-import { exportChart } from '../lib/chart-export.js';
-import { formatNumber, formatPercent } from '../lib/format.js';
-import type { ChartQuery, RangeFilter } from '../lib/result-query.js';
-import { EChart } from './EChart.js';
+import { useCatalogue } from '../api/methods.js';
+import { useChart, useChartAxes } from '../api/runs.js';
+import type { AxisFacts, ChartData, RunInfo } from '../api/types.js';
+import { defaultChoice, numeric, secondInputs, seriesProblem, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
+import { exportChart, exportTitle } from '../lib/chart-export.js';
+import { autoLog, buildChartOption, hiddenOnLogAxes, type ChartLook } from '../lib/chart-option.js';
+import { formatCount, formatNumber } from '../lib/format.js';
+import type { ChartQuery, FlaggedFilter, RangeFilter } from '../lib/result-query.js';
+import { labelWithUnit, type Quantities } from '../lib/units.js';
+import { EChart, type PointerAt } from './EChart.js';
+import { MeasuredComparison } from './MeasuredComparison.js';
 import { Empty, ErrorNote, Loading } from './States.js';
 
 interface Props {
   run: RunInfo;
-  columns: { inputs: string[]; outputs: string[] };
   methods: string[];
+  flagged: FlaggedFilter;
   filters: RangeFilter[];
   measurements: Measurement[];
   live: boolean;
+  quantities: Quantities;
 }
 
-const preferred = (names: string[], wanted: string[]) => wanted.find((w) => names.includes(w)) ?? names[0] ?? '';
-
-/** The title, subtitle and caution that go on an exported chart. */
-export function exportTitle(run: RunInfo, x: string, y: string) {
-  return {
-    text: `${run.title ?? run.study}: ${y} against ${x}`,
-    subtext: `Filmsweep run #${run.id} · study ${run.study} v${run.study_version} (sha256 ${run.yaml_hash.slice(0, 12)}) · ${run.status}${run.git_commit ? ` · commit ${run.git_commit.slice(0, 10)}` : ''}`,
-    footer: CAUTION,
-  };
-}
-
-export function RunChart({ run, columns, methods, filters, measurements, live }: Props) {
+export function RunChart({ run, methods, flagged, filters, measurements, live, quantities }: Props) {
   const id = useId();
-  const [x, setX] = useState(() => preferred(columns.inputs, ['Re', 'Ra', 'Re_x', 'Gr', 'velocity']));
-  const [y, setY] = useState(() => preferred(columns.outputs, ['Nu', 'h', 'Nu_x', 'Nu_D']));
-  const [series, setSeries] = useState('method');
-  const [xLog, setXLog] = useState(true);
-  const [yLog, setYLog] = useState(true);
+  const catalogue = useCatalogue();
+  const axes = useChartAxes(run.id, live);
+  const regime = catalogue.data?.configurations.find((c) => c.id === run.configuration)?.regime;
+  const facts = axes.data?.names ?? [];
+  const [chosen, setChosen] = useState<Partial<ChartChoice>>({});
+  const [logChoice, setLogChoice] = useState<{ x?: boolean; y?: boolean }>({});
   const [band, setBand] = useState('');
   const [measurement, setMeasurement] = useState('');
+  const [pointer, setPointer] = useState<PointerAt | null>(null);
 
-  const query: ChartQuery = { x, y, series, methods, filters, max: 2000, measurement: measurement ? Number(measurement) : undefined };
-  const chart = useChart(run.id, x && y ? query : null, live);
-  const look: ChartLook = { xLog, yLog, bandMethod: band || null };
-  const option = useMemo(() => (chart.data ? buildChartOption(chart.data, look) : null), [chart.data, xLog, yLog, band]);
-  const hidden = chart.data ? hiddenOnLogAxes(chart.data, look) : 0;
-  const bandMethods = chart.data ? Object.keys(chart.data.uncertainty) : methods;
-
-  const save = (type: 'svg' | 'png') => {
-    if (!chart.data) return;
-    const withTitle = buildChartOption(chart.data, { ...look, title: exportTitle(run, chart.data.x, chart.data.y) });
-    exportChart(withTitle, type, `run-${run.id}-${chart.data.y}-vs-${chart.data.x}.${type}`);
+  // Defaults follow the facts (a live run gains names) until the user picks.
+  const defaults = useMemo(() => defaultChoice(facts, regime), [axes.data, regime]);
+  const choice: ChartChoice = { ...defaults, ...chosen };
+  if (choice.by !== 'method' && (choice.by === choice.x || !facts.some((f) => f.name === choice.by))) choice.by = 'method';
+  const drawnMethods = methods.length || run.methods.length;
+  const problem = facts.length ? seriesProblem(facts, choice, drawnMethods) : null;
+  const query: ChartQuery | null =
+    choice.x && choice.y && !problem
+      ? { x: choice.x, y: choice.y, series: choice.by, methods, flagged, filters, max: 2000, measurement: measurement ? Number(measurement) : undefined }
+      : null;
+  const chart = useChart(run.id, query, live);
+  const data = chart.data;
+  const auto = useMemo(() => (data ? autoLog(data, quantities) : { x: true, y: true }), [data, quantities]);
+  const look: ChartLook = { xLog: logChoice.x ?? auto.x, yLog: logChoice.y ?? auto.y, bandMethod: band || null, quantities, layout: choice.layout };
+  const option = useMemo(() => (data ? buildChartOption(data, look) : null), [data, look.xLog, look.yLog, band, quantities, choice.layout]);
+  const hidden = data ? hiddenOnLogAxes(data, look) : 0;
+  const panels = data && data.series_by !== 'method' && choice.layout === 'panels' ? new Set(data.series.map((s) => s.value)).size : 1;
+  const choose = (patch: Partial<ChartChoice>) => {
+    setChosen({ ...chosen, ...patch });
+    if ('x' in patch) setLogChoice((l) => ({ y: l.y }));
+    if ('y' in patch) setLogChoice((l) => ({ x: l.x }));
   };
 
-  const select = (label: string, value: string, set: (v: string) => void, options: { value: string; label: string }[], key: string) => (
+  const what = data ? `${labelWithUnit(quantities(data.y))} against ${labelWithUnit(quantities(data.x))}` : '';
+  const save = (type: 'svg' | 'png') => {
+    if (!data) return;
+    const withTitle = buildChartOption(data, { ...look, title: exportTitle(run, what) });
+    exportChart(withTitle, type, `run-${run.id}-${data.y}-vs-${data.x}.${type}`, panels > 1 ? { width: 1400, height: 300 * Math.ceil(panels / 3) + 200 } : undefined);
+  };
+
+  const names = (role: 'input' | 'output') => facts.filter((f) => f.role === role && numeric(f));
+  const option_ = (f: AxisFacts) => (
+    <option key={f.name} value={f.name}>
+      {labelWithUnit(quantities(f.name))}
+      {varies(f) ? '' : ' (constant)'}
+    </option>
+  );
+  const axisSelect = (label: string, which: 'x' | 'y') => (
     <div>
-      <label htmlFor={`${id}-${key}`} className="field-label">{label}</label>
-      <select id={`${id}-${key}`} className="input w-auto" value={value} onChange={(e) => set(e.target.value)}>
-        {options.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
+      <label htmlFor={`${id}-${which}`} className="field-label">{label}</label>
+      <select id={`${id}-${which}`} className="input w-auto" value={choice[which]} onChange={(e) => choose({ [which]: e.target.value })}>
+        <optgroup label="inputs">{names('input').map(option_)}</optgroup>
+        <optgroup label="outputs (computed and derived)">{names('output').map(option_)}</optgroup>
       </select>
     </div>
   );
+  const seconds = secondInputs(facts, choice.x);
+
+  if (axes.isPending) return <Loading what="Reading the run's inputs and outputs" />;
+  if (axes.isError) return <ErrorNote error={axes.error} title="The chart's choices could not be loaded" />;
+  if (!choice.x || !choice.y) return <Empty>{live ? 'No results to plot yet; the chart appears as the run writes them.' : 'This run has no numeric inputs or outputs to plot.'}</Empty>;
 
   return (
     <div className="space-y-3">
       <div className="flex flex-wrap items-end gap-3">
-        {select('y (output)', y, setY, columns.outputs.map((n) => ({ value: n, label: n })), 'y')}
-        {select('x (input)', x, setX, columns.inputs.map((n) => ({ value: n, label: n })), 'x')}
-        {select('one series per', series, setSeries, [{ value: 'method', label: 'method' }, ...columns.inputs.filter((n) => n !== x).map((n) => ({ value: n, label: `value of ${n}` }))], 'series')}
+        {axisSelect('y axis', 'y')}
+        {axisSelect('x axis', 'x')}
+        <div>
+          <label htmlFor={`${id}-by`} className="field-label">series</label>
+          <select id={`${id}-by`} className="input w-auto" value={choice.by} onChange={(e) => choose({ by: e.target.value })}>
+            <option value="method">one per method</option>
+            {seconds.map((f) => (
+              <option key={f.name} value={f.name}>per method and value of {f.name} ({formatCount(f.distinct)} values)</option>
+            ))}
+          </select>
+        </div>
+        {choice.by !== 'method' && (
+          <fieldset className="flex items-center gap-3 pb-1.5">
+            <legend className="field-label">values of {choice.by} as</legend>
+            {(['style', 'panels'] as SeriesLayout[]).map((l) => (
+              <label key={l} className="flex items-center gap-1 text-sm">
+                <input type="radio" name={`${id}-layout`} checked={choice.layout === l} onChange={() => choose({ layout: l })} /> {l === 'style' ? 'line styles' : 'small multiples'}
+              </label>
+            ))}
+          </fieldset>
+        )}
         <fieldset className="flex items-center gap-3 pb-1.5">
           <legend className="field-label">log axes</legend>
-          <label className="flex items-center gap-1 text-sm"><input type="checkbox" checked={xLog} onChange={(e) => setXLog(e.target.checked)} /> x</label>
-          <label className="flex items-center gap-1 text-sm"><input type="checkbox" checked={yLog} onChange={(e) => setYLog(e.target.checked)} /> y</label>
+          <label className="flex items-center gap-1 text-sm"><input type="checkbox" checked={look.xLog} onChange={(e) => setLogChoice({ ...logChoice, x: e.target.checked })} /> x</label>
+          <label className="flex items-center gap-1 text-sm"><input type="checkbox" checked={look.yLog} onChange={(e) => setLogChoice({ ...logChoice, y: e.target.checked })} /> y</label>
         </fieldset>
-        {select('uncertainty band', band, setBand, [{ value: '', label: 'none' }, ...bandMethods.map((m) => ({ value: m, label: `${m} (±${formatNumber((chart.data?.uncertainty[m] ?? 0) * 100, 3)} %)` }))], 'band')}
-        {select('measured data', measurement, setMeasurement, [{ value: '', label: 'none' }, ...measurements.map((m) => ({ value: String(m.id), label: `${m.name} (${m.rows} rows)` }))], 'measured')}
+        <div>
+          <label htmlFor={`${id}-band`} className="field-label">uncertainty band</label>
+          <select id={`${id}-band`} className="input w-auto" value={band} onChange={(e) => setBand(e.target.value)}>
+            <option value="">none</option>
+            {Object.entries(data?.uncertainty ?? {}).map(([m, f]) => (
+              <option key={m} value={m}>{m} (±{formatNumber(f * 100, 3)} %)</option>
+            ))}
+          </select>
+        </div>
+        <div>
+          <label htmlFor={`${id}-measured`} className="field-label">measured data</label>
+          <select id={`${id}-measured`} className="input w-auto" value={measurement} onChange={(e) => setMeasurement(e.target.value)}>
+            <option value="">none</option>
+            {measurements.map((m) => <option key={m.id} value={String(m.id)}>{m.name} ({formatCount(m.rows)} rows)</option>)}
+          </select>
+        </div>
         <div className="ml-auto flex gap-1.5 pb-0.5">
-          <button type="button" className="btn btn-small" onClick={() => save('svg')} disabled={!chart.data}>Chart as SVG</button>
-          <button type="button" className="btn btn-small" onClick={() => save('png')} disabled={!chart.data}>Chart as PNG</button>
+          <button type="button" className="btn btn-small" onClick={() => save('svg')} disabled={!data}>Chart as SVG</button>
+          <button type="button" className="btn btn-small" onClick={() => save('png')} disabled={!data}>Chart as PNG</button>
         </div>
       </div>
-      {!x || !y ? (
-        <Empty>This run has no numeric inputs or outputs to plot.</Empty>
+      {problem ? (
+        <div role="status" className="rounded-md border border-copper-500/40 bg-copper-100 px-3 py-2 text-sm text-copper-700" data-testid="series-problem">
+          <p>{problem}</p>
+          <div className="mt-2 flex flex-wrap gap-2">
+            <button type="button" className="btn btn-small" onClick={() => choose({ by: 'method' })}>One series per method</button>
+            {choice.layout === 'style' && (
+              <button type="button" className="btn btn-small" onClick={() => choose({ layout: 'panels' })}>Small multiples</button>
+            )}
+            <button type="button" className="btn btn-small" onClick={() => choose({ x: choice.by, by: 'method' })}>Put {choice.by} on x</button>
+          </div>
+        </div>
       ) : chart.isPending ? (
         <Loading what="Drawing the chart" />
       ) : chart.isError ? (
         <ErrorNote error={chart.error} title="The chart could not be loaded" />
-      ) : chart.data.series.length === 0 ? (
-        <Empty>No points to plot with these filters.</Empty>
+      ) : data!.series.length === 0 ? (
+        <Empty>No points to plot with these choices and filters.</Empty>
       ) : (
         <>
-          <EChart option={option!} label={`${chart.data.y} against ${chart.data.x}`} />
+          <EChart
+            option={option!}
+            height={panels > 1 ? 240 * Math.ceil(panels / (panels <= 2 ? panels : panels <= 4 ? 2 : panels <= 9 ? 3 : 4)) + 60 : 460}
+            label={what}
+            onPointer={setPointer}
+          />
+          <p className="min-h-5 font-mono text-xs text-ink-700" data-testid="crosshair" aria-live="off">
+            {pointer ? `${data!.x} = ${formatNumber(pointer.x, 4)} ${quantities(data!.x).unit} · ${data!.y} = ${formatNumber(pointer.y, 4)} ${quantities(data!.y).unit}`.replace(/ [-?](?= ·|$)/g, '') : 'Point at the chart to read x and y.'}
+          </p>
           <p className="text-xs text-ink-600" data-testid="chart-note">
-            {chart.data.total.toLocaleString('en')} points in {chart.data.series.length} series
-            {chart.data.downsampled ? ' · thinned for display (the extremes of each stretch along x are kept; the table and exports have every point)' : ''}
-            {hidden ? ` · ${hidden} points with zero or negative values cannot be shown on log axes` : ''}
-            {' · ◇ hollow diamonds are flagged results (outside a validity range)'}
-            {band && !(option!.series as { stack?: string }[]).some((x) => x.stack) ? ' · the band needs one value per x: choose one series per value of the other swept input' : ''}
+            {data!.total_estimated ? 'about ' : ''}{formatCount(data!.total)} results in {formatCount(data!.series.length)} series
+            {data!.sampled ? ` · drawn from a fixed sample of ${formatCount(data!.sampled)} results${data!.total_estimated ? ' (the count is estimated from it; the table counts exactly)' : ''}, keeping the lowest and highest of each stretch along x; the table and exports have every result` : data!.downsampled ? ' · thinned for display (the lowest and highest of each stretch along x are kept; the table and exports have every result)' : ''}
+            {hidden ? ` · ${formatCount(hidden)} points with zero or negative values cannot be shown on log axes` : ''}
+            {data!.flag_details.length || data!.series.some((s) => s.points.some((p) => p[2])) ? ' · ◇ hollow diamonds are flagged results (outside a validity range; point at one to see which)' : ''}
+            {band && !(option!.series as { stack?: string }[]).some((x) => x.stack) ? ' · the band needs one value per x: split the series by the other swept input' : ''}
           </p>
         </>
       )}
-      {chart.data?.measured && (
-        <div className="rounded-md border border-ink-100 p-3" data-testid="mad">
-          <p className="mb-1 text-xs font-semibold text-ink-600">Mean absolute deviation from the measured data “{chart.data.measured.name}” (relative)</p>
-          <ul className="flex flex-wrap gap-x-5 gap-y-1 text-sm">
-            {Object.entries(chart.data.measured.mad).map(([m, v]) => (
-              <li key={m}><span className="font-mono text-xs">{m}</span> {formatPercent(v).replace('+', '')}</li>
-            ))}
-          </ul>
-        </div>
-      )}
+      {data && data.left_out.length > 0 && <LeftOutNote data={data} onPlot={(name) => choose({ y: name })} />}
+      {data?.measured && <MeasuredComparison run={run} data={data} quantities={quantities} />}
+    </div>
+  );
+}
+
+function LeftOutNote({ data, onPlot }: { data: ChartData; onPlot: (name: string) => void }) {
+  return (
+    <div className="rounded-md border border-ink-100 p-3 text-sm" data-testid="left-out">
+      <p className="mb-1 text-xs font-semibold text-ink-600">Not on this chart</p>
+      <ul className="space-y-1">
+        {data.left_out.map((l) => {
+          const instead = l.local?.includes(`${data.y}_x`) ? `${data.y}_x` : l.local?.includes('Nu_x') ? 'Nu_x' : undefined;
+          return (
+            <li key={l.method}>
+              <span className="font-mono text-xs">{l.method}</span> {l.reason}
+              {instead && (
+                <button type="button" className="btn btn-small ml-2" onClick={() => onPlot(instead)}>Plot {instead}</button>
+              )}
+            </li>
+          );
+        })}
+      </ul>
     </div>
   );
 }

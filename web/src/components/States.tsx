@@ -5,14 +5,14 @@ import { ApiError } from '../api/client.js';
 export function Loading({ what = 'Loading' }: { what?: string }) {
   return (
     <div role="status" aria-live="polite" className="flex items-center gap-2 py-6 text-sm text-ink-600">
-      <span className="h-3 w-3 animate-spin rounded-full border-2 border-ink-200 border-t-ink-700" aria-hidden />
+      <span className="h-3 w-3 animate-spin rounded-full border-2 border-ink-200 border-t-ember-500" aria-hidden />
       {what}…
     </div>
   );
 }
 
 export function Empty({ children }: { children: ReactNode }) {
-  return <div className="rounded-md border border-dashed border-ink-200 px-4 py-6 text-center text-sm text-ink-600">{children}</div>;
+  return <div role="status" className="rounded-[3px] border border-dashed border-ink-200 px-4 py-6 text-center text-sm text-ink-600">{children}</div>;
 }
 
 export function errorText(error: unknown): string {
@@ -27,12 +27,12 @@ export function errorText(error: unknown): string {
 
 export function ErrorNote({ error, title = 'Something went wrong' }: { error: unknown; title?: string }) {
   return (
-    <div role="alert" className="rounded-md border border-brick-700/30 bg-brick-100 px-3 py-2 text-sm text-brick-700">
+    <div role="alert" className="rounded-[3px] border-l-[3px] border-brick-700 bg-brick-100 px-3 py-2 text-sm text-brick-700">
       <strong className="font-semibold">{title}.</strong> {errorText(error)}
     </div>
   );
 }
 
 export function Notice({ children }: { children: ReactNode }) {
-  return <div role="status" className="rounded-md border border-moss-700/30 bg-moss-100 px-3 py-2 text-sm text-moss-700">{children}</div>;
+  return <div role="status" className="rounded-[3px] border-l-[3px] border-moss-700 bg-moss-100 px-3 py-2 text-sm text-moss-700">{children}</div>;
 }

@@ -10,7 +10,7 @@ const tone: Record<RunStatus, string> = {
 };
 
 export function StatusBadge({ status }: { status: RunStatus }) {
-  return <span className={`inline-block rounded border px-1.5 py-0.5 text-xs font-medium ${tone[status]}`} data-testid="run-status">{status}</span>;
+  return <span className={`inline-block rounded-[3px] border px-1.5 py-0.5 text-xs font-medium ${tone[status]}`} data-testid="run-status">{status}</span>;
 }
 
 export function RunProgress({ run }: { run: Pick<RunInfo, 'points_done' | 'points_total' | 'status'> }) {
@@ -18,13 +18,13 @@ export function RunProgress({ run }: { run: Pick<RunInfo, 'points_done' | 'point
   return (
     <div className="flex items-center gap-2" aria-label="run progress">
       <div
-        className="h-2 w-48 overflow-hidden rounded-full bg-ink-100"
+        className="h-2 w-32 overflow-hidden rounded-[2px] bg-ink-100 sm:w-48"
         role="progressbar"
         aria-valuemin={0}
         aria-valuemax={run.points_total}
         aria-valuenow={run.points_done}
       >
-        <div className={`h-full ${run.status === 'running' ? 'bg-copper-500' : 'bg-ink-600'}`} style={{ width: `${(fraction * 100).toFixed(1)}%` }} />
+        <div className={`h-full ${run.status === 'running' ? 'film' : 'bg-ink-600'}`} style={{ width: `${(fraction * 100).toFixed(1)}%` }} />
       </div>
       <span className="text-xs tabular-nums text-ink-600">
         {run.points_done.toLocaleString('en')} / {run.points_total.toLocaleString('en')} points

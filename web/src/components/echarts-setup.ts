@@ -1,9 +1,9 @@
 // The parts of ECharts the dashboard uses, registered once (keeps the bundle small).
 import * as echarts from 'echarts/core';
 import { LineChart, ScatterChart } from 'echarts/charts';
-import { GraphicComponent, GridComponent, LegendComponent, TitleComponent, TooltipComponent } from 'echarts/components';
+import { AxisPointerComponent, GraphicComponent, GridComponent, LegendComponent, TitleComponent, TooltipComponent } from 'echarts/components';
 import { CanvasRenderer, SVGRenderer } from 'echarts/renderers';
 
-echarts.use([LineChart, ScatterChart, GridComponent, LegendComponent, TitleComponent, TooltipComponent, GraphicComponent, CanvasRenderer, SVGRenderer]);
+echarts.use([LineChart, ScatterChart, GridComponent, AxisPointerComponent, LegendComponent, TitleComponent, TooltipComponent, GraphicComponent, CanvasRenderer, SVGRenderer]);
 
 export { echarts };

@@ -1,7 +1,18 @@
 // Chart files (SVG, PNG) for memos: the option is drawn again off screen at a fixed
 // size with its title, subtitle and caution, then saved through a download link.
 import type { EChartsCoreOption } from 'echarts/core';
+import { CAUTION } from '../../../shared/export/caution.js';
+import type { RunInfo } from '../api/types.js';
 import { echarts } from '../components/echarts-setup.js';
+
+/** The title, subtitle and caution that go on an exported chart of a run. */
+export function exportTitle(run: RunInfo, what: string) {
+  return {
+    text: `${run.title ?? run.study}: ${what}`,
+    subtext: `Filmsweep run #${run.id} · study ${run.study} v${run.study_version} (sha256 ${run.yaml_hash.slice(0, 12)}) · ${run.status}${run.git_commit ? ` · commit ${run.git_commit.slice(0, 10)}` : ''}`,
+    footer: CAUTION,
+  };
+}
 
 export function downloadDataUrl(url: string, filename: string) {
   const a = document.createElement('a');

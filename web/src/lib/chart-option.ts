@@ -1,150 +1,326 @@
-// Turns the API's chart data into an ECharts option: one line per series, flagged
-// points drawn as hollow diamonds, an optional ±uncertainty band for one method,
-// measured points on top, and for exports a title, subtitle and the caution line.
+// Turns the API's chart data into an ECharts option. Colour says the method; a second
+// input is told by line style and marker (its values in a legend of their own, sorted by
+// value) or split into small multiples (one panel per value, shared axes). Axis titles,
+// tooltips and legend labels carry units (the user's °C or K); flagged points are hollow
+// diamonds whose tooltip says which range was broken; an optional ±uncertainty band;
+// measured points on top; log axes with labels between decades; a crosshair on both
+// axes. Exports add a title, subtitle and the caution, and keep the band and the
+// measured data in the legend. Every user-controlled string that reaches the tooltip
+// (HTML) goes through escapeHtml.
 import type { EChartsCoreOption } from 'echarts/core';
-import type { ChartData } from '../api/types.js';
+import type { ChartData, ChartSeries, FlagDetail } from '../api/types.js';
+import type { SeriesLayout } from './chart-defaults.js';
+import { escapeHtml } from './escape-html.js';
+import { flagText } from './flag-text.js';
 import { formatNumber } from './format.js';
+import { isDecade, logTicks } from './log-axis.js';
+import { formatQuantity, labelWithUnit, type Quantities, type Quantity } from './units.js';
 
-/** Filmsweep's series colours (our own palette: ink blue, copper, moss, plum …). */
-export const SERIES_COLOURS = ['#1f4e79', '#c0602a', '#4f7a3a', '#7b3f78', '#2f8f8a', '#a8842c', '#9a3b3b', '#55606e', '#3d6fb3', '#6d8f2e'];
-export const MEASURED_COLOUR = '#111827';
+import { FONT_SANS, MEASURED_COLOUR as THEME_MEASURED_COLOUR, PALETTE, SERIES_COLOURS as THEME_SERIES_COLOURS } from './theme.js';
+
+/** Filmsweep's series colours and the measured data's (the palette lives in theme.ts). */
+export const SERIES_COLOURS = THEME_SERIES_COLOURS;
+export const MEASURED_COLOUR = THEME_MEASURED_COLOUR;
+/** Neutral ink for legend keys that stand for no one method (line styles, flags). */
+export const KEY_COLOUR = PALETTE['ink-600'];
+export const GRID_COLOUR = '#e3e6ea';
+export const MINOR_GRID_COLOUR = '#f1f3f5';
+/** The chart's font, the app's own (shipped with it). */
+export const CHART_FONT = FONT_SANS;
+
+/** Markers and dash patterns for the values of a second input, in value order. */
+export const VALUE_SYMBOLS = ['circle', 'rect', 'triangle', 'diamond', 'roundRect', 'pin', 'arrow', 'emptyCircle'] as const;
+export const VALUE_DASHES: (string | number[])[] = ['solid', 'dashed', 'dotted', [10, 3, 2, 3], [14, 4], [2, 5], [10, 3, 2, 3, 2, 3], [5, 2]];
 
 export interface ChartLook {
   xLog: boolean;
   yLog: boolean;
   /** Draw the ±fraction band of this method (from `uncertainty`), or none. */
   bandMethod: string | null;
+  /** Units and display conversions of the run's names. */
+  quantities: Quantities;
+  /** Series by a second input: line styles (default) or one panel per value. */
+  layout?: SeriesLayout;
   /** Export only: title, subtitle and a footer line (the caution). */
   title?: { text: string; subtext: string; footer: string };
 }
 
-type Pt = [number, number, number];
+type Pt = [number, number, number, number?];
 
-const usable = (look: ChartLook) => (p: readonly number[]) =>
-  Number.isFinite(p[0]) && Number.isFinite(p[1]) && (!look.xLog || p[0] > 0) && (!look.yLog || p[1] > 0);
+const finite = (p: readonly (number | undefined)[]) => Number.isFinite(p[0]) && Number.isFinite(p[1]);
+const usable = (look: Pick<ChartLook, 'xLog' | 'yLog'>) => (p: readonly (number | undefined)[]) => finite(p) && (!look.xLog || p[0]! > 0) && (!look.yLog || p[1]! > 0);
 
-/** Points a log axis cannot show (zero or negative), counted so the view can say so. */
-export function hiddenOnLogAxes(data: ChartData, look: ChartLook): number {
+/** The chart's points in display units (°C or K), in the same shapes. */
+export function displayPoints(data: ChartData, quantities: Quantities) {
+  const qx = quantities(data.x);
+  const qy = quantities(data.y);
+  return {
+    series: data.series.map((s) => ({ ...s, points: s.points.map((p) => [qx.toDisplay(p[0]), qy.toDisplay(p[1]), p[2], p[3]] as Pt) })),
+    measured: data.measured?.points.map(([x, y]) => [qx.toDisplay(x), qy.toDisplay(y)] as [number, number]) ?? [],
+  };
+}
+
+/** Points a log axis cannot show (zero or negative in the units shown), counted so the view can say so. */
+export function hiddenOnLogAxes(data: ChartData, look: Pick<ChartLook, 'xLog' | 'yLog' | 'quantities'>): number {
   const ok = usable(look);
+  const shown = displayPoints(data, look.quantities);
   let n = 0;
-  for (const s of data.series) for (const p of s.points) if (!ok(p)) n++;
-  if (data.measured) for (const p of data.measured.points) if (!ok(p)) n++;
+  for (const s of shown.series) for (const p of s.points) if (finite(p) && !ok(p)) n++;
+  for (const p of shown.measured) if (finite(p) && !ok(p)) n++;
   return n;
 }
 
+/** Log axes by default where every value shown is positive and they span a decade or more. */
+export function autoLog(data: ChartData, quantities: Quantities): { x: boolean; y: boolean } {
+  const shown = displayPoints(data, quantities);
+  const all = [...shown.series.flatMap((s) => s.points), ...shown.measured];
+  const wide = (k: 0 | 1) => {
+    const v = all.map((p) => p[k]).filter(Number.isFinite);
+    if (!v.length) return false;
+    const lo = Math.min(...v);
+    const hi = Math.max(...v);
+    return lo > 0 && hi / lo >= 10;
+  };
+  return { x: wide(0), y: wide(1) };
+}
+
+/** `gnielinski`, or `gnielinski, Pr = 0.7` with the value in display units. */
+export function seriesLabel(s: Pick<ChartSeries, 'method' | 'value'>, by: string | null, quantities: Quantities): string {
+  return by ? `${s.method}, ${valueLabel(by, s.value, quantities)}` : s.method;
+}
+
+export function valueLabel(by: string, value: ChartSeries['value'], quantities: Quantities): string {
+  if (typeof value === 'number') return `${by} = ${formatQuantity(quantities(by), value)}`;
+  return `${by} = ${value === null || value === undefined ? 'none' : String(value)}`;
+}
+
+interface Frame {
+  left: string | number;
+  right: string | number;
+  top: string | number;
+  bottom: string | number;
+}
+
 export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreOption {
+  const q = look.quantities;
+  const qx = q(data.x);
+  const qy = q(data.y);
   const ok = usable(look);
+  const by = data.series_by && data.series_by !== 'method' ? data.series_by : null;
+  const shown = displayPoints(data, q);
+  const methods = [...new Set(data.series.map((s) => s.method))];
+  const colourOf = (method: string) => SERIES_COLOURS[methods.indexOf(method) % SERIES_COLOURS.length];
+  const values = by ? sortedValues(data.series.map((s) => s.value)) : [];
+  const valueIndex = (v: ChartSeries['value']) => values.findIndex((x) => x === v);
+  const panels = by && look.layout === 'panels' && values.length > 1;
+  const panelCount = panels ? values.length : 1;
+
   const series: Record<string, unknown>[] = [];
+  const legendData: (string | { name: string; icon?: string })[] = [];
   let anyFlagged = false;
 
-  data.series.forEach((s, i) => {
-    const colour = SERIES_COLOURS[i % SERIES_COLOURS.length];
-    const pts = (s.points as Pt[]).filter(ok).sort((a, b) => a[0] - b[0]);
+  shown.series.forEach((s, i) => {
+    const colour = colourOf(s.method);
+    const k = by ? valueIndex(s.value) : 0;
+    const styled = by && !panels;
+    const axis = panels ? { xAxisIndex: k, yAxisIndex: k } : {};
+    const pts = s.points.filter(ok).sort((a, b) => a[0] - b[0]);
     // Several points at one x (another input varies within the series): a joining line
     // would zigzag between them and suggest a curve that is not there.
-    const joined = pts.every((p, k) => k === 0 || p[0] !== pts[k - 1][0]);
+    const joined = pts.every((p, j) => j === 0 || p[0] !== pts[j - 1][0]);
+    const name = seriesLabel(data.series[i], by, q);
+    const symbol = styled ? VALUE_SYMBOLS[k % VALUE_SYMBOLS.length] : 'circle';
     series.push({
       type: joined ? 'line' : 'scatter',
-      name: s.name,
+      name,
       color: colour,
+      symbol,
       showSymbol: true,
-      symbolSize: joined ? 5 : 7,
-      lineStyle: { width: 1.6 },
+      symbolSize: joined ? 6 : 7,
+      lineStyle: { width: 1.6, type: styled ? VALUE_DASHES[k % VALUE_DASHES.length] : 'solid' },
       emphasis: { focus: 'series' },
-      data: pts.map(([x, y, flagged]) => {
-        if (!flagged) return { value: [x, y, 0] };
+      ...axis,
+      data: pts.map(([x, y, flagged, detail]) => {
+        if (!flagged) return { value: [x, y] };
         anyFlagged = true;
-        return { value: [x, y, 1], symbol: 'diamond', symbolSize: 10, itemStyle: { color: '#ffffff', borderColor: colour, borderWidth: 2 } };
+        return { value: [x, y], flagged: 1, detail, symbol: 'diamond', symbolSize: 10, itemStyle: { color: '#ffffff', borderColor: colour, borderWidth: 2 } };
       }),
     });
+    if (!by) legendData.push(name);
     const fraction = look.bandMethod && s.method === look.bandMethod ? data.uncertainty[s.method] : undefined;
-    if (fraction !== undefined && fraction > 0 && joined) {
-      const bandName = `±${formatNumber(fraction * 100, 3)} % ${s.name}`;
+    if (fraction !== undefined && fraction > 0 && joined && pts.length > 1) {
       const stack = `band-${i}`;
-      series.push({
-        type: 'line',
-        name: bandName,
-        stack,
-        color: colour,
-        symbol: 'none',
-        silent: true,
-        lineStyle: { opacity: 0 },
-        data: pts.map(([x, y]) => [x, y * (1 - fraction)]),
-      });
-      series.push({
-        type: 'line',
-        name: bandName,
-        stack,
-        color: colour,
-        symbol: 'none',
-        silent: true,
-        lineStyle: { opacity: 0 },
-        areaStyle: { opacity: 0.16, color: colour },
-        data: pts.map(([x, y]) => [x, 2 * y * fraction]),
-      });
+      const common = { type: 'line', name: bandName(s.method, fraction), stack, color: colour, symbol: 'none', silent: true, lineStyle: { opacity: 0 }, ...axis };
+      series.push({ ...common, data: pts.map(([x, y]) => [x, y * (1 - fraction)]) });
+      series.push({ ...common, areaStyle: { opacity: 0.16, color: colour }, data: pts.map(([x, y]) => [x, 2 * y * fraction]) });
     }
   });
 
+  // Legend keys with no data of their own: one per method (colour) and one per value of
+  // the second input (marker and dash), so the legend stays short and sorted by value.
+  if (by) {
+    for (const m of methods) {
+      series.push({ type: 'line', name: m, color: colourOf(m), symbol: 'none', lineStyle: { width: 3 }, data: [] });
+      legendData.push(m);
+    }
+    if (!panels) {
+      values.forEach((v, k) => {
+        const name = valueLabel(by, v, q);
+        series.push({ type: 'line', name, color: KEY_COLOUR, symbol: VALUE_SYMBOLS[k % VALUE_SYMBOLS.length], symbolSize: 7, lineStyle: { width: 1.6, type: VALUE_DASHES[k % VALUE_DASHES.length] }, data: [] });
+        legendData.push(name);
+      });
+    }
+  }
+  if (look.bandMethod && series.some((s) => s.stack)) {
+    const fraction = data.uncertainty[look.bandMethod];
+    series.push({ type: 'line', name: bandName(look.bandMethod, fraction), color: colourOf(look.bandMethod), symbol: 'none', lineStyle: { opacity: 0 }, areaStyle: { opacity: 0.16 }, data: [] });
+    legendData.push({ name: bandName(look.bandMethod, fraction), icon: 'rect' });
+  }
   if (anyFlagged) {
-    // A legend entry explaining the diamonds; it has no data of its own.
-    series.push({ type: 'scatter', name: 'flagged (outside range)', symbol: 'diamond', symbolSize: 10, itemStyle: { color: '#ffffff', borderColor: '#55606e', borderWidth: 2 }, data: [] });
+    series.push({ type: 'scatter', name: FLAGGED, symbol: 'diamond', symbolSize: 10, itemStyle: { color: '#ffffff', borderColor: KEY_COLOUR, borderWidth: 2 }, data: [] });
+    legendData.push(FLAGGED);
   }
   if (data.measured) {
-    series.push({
-      type: 'scatter',
-      name: `measured: ${data.measured.name}`,
-      symbol: 'rect',
-      symbolSize: 7,
-      color: MEASURED_COLOUR,
-      z: 5,
-      data: data.measured.points.filter(ok).map(([x, y]) => [x, y]),
-    });
+    const name = `measured: ${data.measured.name}`;
+    // In panels, a measured row goes to the panel of its own value of the second input.
+    const rows = shown.measured.map((p, j) => ({ p, v: data.measured!.values?.[j] })).filter((e) => ok(e.p));
+    const same = (a: unknown, b: unknown) => typeof a === 'number' && typeof b === 'number' && Math.abs(a - b) <= 1e-9 * Math.abs(b);
+    const panelData = panels ? values.map((v) => rows.filter((e) => same(e.v, v)).map((e) => e.p)) : [rows.map((e) => e.p)];
+    panelData.forEach((p, k) =>
+      series.push({ type: 'scatter', name, symbol: 'rect', symbolSize: 7, color: MEASURED_COLOUR, z: 5, measured: true, ...(panels ? { xAxisIndex: k, yAxisIndex: k } : {}), data: p }),
+    );
+    legendData.push(name);
   }
 
-  const axis = (name: string, log: boolean) => ({
+  // Axes: shared bounds across panels, so panels compare at a glance.
+  const allPts = [...shown.series.flatMap((s) => s.points.filter(ok)), ...shown.measured.filter(ok)];
+  const bounds = (k: 0 | 1, log: boolean) => axisBounds(allPts.map((p) => p[k]), log);
+  // Linear axes of a single frame keep ECharts' own round bounds.
+  const xb = look.xLog || panels ? bounds(0, look.xLog) : undefined;
+  const yb = look.yLog || panels ? bounds(1, look.yLog) : undefined;
+  const frames = layoutFrames(panelCount, legendData, Boolean(look.title));
+  const axis = (quantity: Quantity, log: boolean, b: ReturnType<typeof axisBounds>, frame: number, which: 'x' | 'y') => ({
     type: log ? 'log' : 'value',
-    name,
+    gridIndex: frame,
+    name: panels && frame !== (which === 'x' ? panelCount - 1 : 0) ? '' : labelWithUnit(quantity),
     nameLocation: 'middle',
-    nameGap: 30,
+    nameGap: which === 'x' ? 28 : 54,
+    nameTextStyle: { fontWeight: 600 },
     scale: !log,
-    axisLabel: { formatter: (v: number) => formatNumber(v, 3) },
-    splitLine: { lineStyle: { color: '#e3e6ea' } },
-    minorSplitLine: { show: log, lineStyle: { color: '#f1f3f5' } },
-    minorTick: { show: log },
+    ...(b ? { min: b.min, max: b.max } : {}),
+    axisLabel: {
+      formatter: (v: number) => (log && !isDecade(v) ? `{minor|${formatNumber(v, 3)}}` : formatNumber(v, 3)),
+      rich: { minor: { fontSize: 9, color: '#7a8594' } },
+      hideOverlap: true,
+      ...(log && b?.labels ? { customValues: b.labels } : {}),
+    },
+    axisTick: log && b?.ticks ? { customValues: b.ticks } : {},
+    splitLine: { lineStyle: { color: GRID_COLOUR } },
+    minorTick: { show: !log },
+    minorSplitLine: { show: !log, lineStyle: { color: MINOR_GRID_COLOUR } },
+    // The crosshair: a line and a value label on each axis follow the pointer.
+    axisPointer: { show: true, type: 'line', snap: false, triggerTooltip: false, label: { formatter: (p: { value: number }) => formatNumber(p.value, 4), backgroundColor: '#55606e' } },
   });
 
-  // Bands share their line's colour and need no legend entry of their own.
-  const legendNames = [...new Set(series.filter((x) => !x.stack).map((x) => x.name as string))];
-  const top = look.title ? 78 : 36;
   const option: EChartsCoreOption = {
     animation: false,
-    textStyle: { fontFamily: '"IBM Plex Sans", system-ui, sans-serif' },
-    grid: { left: 70, right: look.title ? 250 : 24, top, bottom: look.title ? 86 : 56 },
-    // On screen a scrolling legend above the plot; in a file every entry, in a column on the right.
-    legend: look.title
-      ? { type: 'plain', orient: 'vertical', right: 8, top, data: legendNames, textStyle: { fontSize: 11 } }
-      : { type: 'scroll', top: 4, left: 'center', data: legendNames },
+    textStyle: { fontFamily: CHART_FONT },
+    grid: frames.map((f) => ({ ...f, containLabel: false })),
+    legend: {
+      type: 'plain',
+      orient: 'vertical',
+      right: 8,
+      top: look.title ? 78 : 12,
+      data: legendData,
+      selectedMode: by ? false : true,
+      textStyle: { fontSize: 11 },
+    },
     tooltip: {
       trigger: 'item',
-      formatter: (p: { seriesName: string; value: number[] }) =>
-        `${p.seriesName}<br/>${data.x} = ${formatNumber(p.value[0])}<br/>${data.y} = ${formatNumber(p.value[1])}${p.value[2] ? '<br/><b>flagged</b>' : ''}`,
+      confine: true,
+      formatter: (p: { seriesName: string; value: number[]; data: { flagged?: number; detail?: number } | number[] }) => tooltipHtml(p, data, qx, qy, q),
     },
-    xAxis: { ...axis(data.x, look.xLog), nameGap: 28 },
-    yAxis: { ...axis(data.y, look.yLog), nameGap: 52 },
+    xAxis: frames.map((_, k) => axis(qx, look.xLog, xb, k, 'x')),
+    yAxis: frames.map((_, k) => axis(qy, look.yLog, yb, k, 'y')),
     series,
   };
-  if (look.title) {
-    option.title = { text: look.title.text, subtext: look.title.subtext, left: 'center', top: 4, textStyle: { fontSize: 15 }, subtextStyle: { fontSize: 11 } };
-    option.graphic = [
-      {
-        type: 'text',
-        left: 16,
-        bottom: 8,
-        style: { text: wrap(look.title.footer, 170), fontSize: 10, fill: '#55606e', lineHeight: 13 },
-      },
-    ];
+  const titles: Record<string, unknown>[] = [];
+  if (panels) {
+    // Each panel titled with its value, just above its frame.
+    values.forEach((v, k) => titles.push({ text: valueLabel(by!, v, q), left: frames[k].left, top: `${parseFloat(String(frames[k].top)) - 4.5}%`, textStyle: { fontSize: 12, fontWeight: 600 } }));
   }
+  if (look.title) {
+    titles.unshift({ text: look.title.text, subtext: look.title.subtext, left: 'center', top: 4, textStyle: { fontSize: 15 }, subtextStyle: { fontSize: 11 } });
+    option.graphic = [{ type: 'text', left: 16, bottom: 8, style: { text: wrap(look.title.footer, 170), fontSize: 10, fill: KEY_COLOUR, lineHeight: 13 } }];
+  }
+  if (titles.length) option.title = titles;
   return option;
+}
+
+const FLAGGED = 'flagged (outside a validity range)';
+const bandName = (method: string, fraction: number) => `±${formatNumber(fraction * 100, 3)} % band: ${method}`;
+
+function sortedValues(values: ChartSeries['value'][]): ChartSeries['value'][] {
+  const rank = (v: unknown) => (typeof v === 'number' ? 0 : v === null || v === undefined ? 2 : 1);
+  return [...new Set(values)].sort((a, b) => rank(a) - rank(b) || (typeof a === 'number' && typeof b === 'number' ? a - b : String(a).localeCompare(String(b))));
+}
+
+function axisBounds(values: number[], log: boolean): { min: number; max: number; ticks?: number[]; labels?: number[] } | undefined {
+  const v = values.filter(Number.isFinite);
+  if (!v.length) return undefined;
+  const lo = Math.min(...v);
+  const hi = Math.max(...v);
+  if (log) return logTicks(lo, hi) ?? undefined;
+  if (lo === hi) return undefined;
+  const pad = (hi - lo) * 0.04;
+  return { min: niceFloor(lo - pad, hi - lo), max: niceCeil(hi + pad, hi - lo) };
+}
+
+const niceStep = (range: number) => 10 ** Math.floor(Math.log10(range)) / 10;
+const niceFloor = (v: number, range: number) => Number((Math.floor(v / niceStep(range)) * niceStep(range)).toPrecision(12));
+const niceCeil = (v: number, range: number) => Number((Math.ceil(v / niceStep(range)) * niceStep(range)).toPrecision(12));
+
+/** Plot frames: one, or a grid of panels, left of a vertical legend as wide as its longest entry. */
+function layoutFrames(n: number, legend: (string | { name: string })[], exported: boolean): Frame[] {
+  const longest = Math.max(8, ...legend.map((l) => (typeof l === 'string' ? l : l.name).length));
+  const legendPct = Math.min(34, Math.round(((longest * 6.4 + 44) / 1100) * 100));
+  const top = exported ? 78 : 16;
+  const bottom = exported ? 86 : 48;
+  if (n === 1) return [{ left: 76, right: `${legendPct + 1}%`, top, bottom }];
+  const cols = n <= 2 ? n : n <= 4 ? 2 : n <= 9 ? 3 : 4;
+  const rows = Math.ceil(n / cols);
+  const width = (100 - legendPct - 9) / cols;
+  const height = (100 - (exported ? 26 : 12)) / rows;
+  const frames: Frame[] = [];
+  for (let k = 0; k < n; k++) {
+    const c = k % cols;
+    const r = Math.floor(k / cols);
+    frames.push({
+      left: `${(7 + c * width + 1.5).toFixed(2)}%`,
+      right: `${(100 - (7 + (c + 1) * width) + 1.5).toFixed(2)}%`,
+      top: `${((exported ? 14 : 5) + r * height + 4).toFixed(2)}%`,
+      bottom: `${(100 - ((exported ? 14 : 5) + (r + 1) * height) + 5).toFixed(2)}%`,
+    });
+  }
+  return frames;
+}
+
+function tooltipHtml(
+  p: { seriesName: string; value: number[]; data: { flagged?: number; detail?: number } | number[] },
+  data: ChartData,
+  qx: Quantity,
+  qy: Quantity,
+  q: Quantities,
+): string {
+  const at = (quantity: Quantity, v: number) => `${escapeHtml(quantity.name)} = ${escapeHtml(formatNumber(v, 4))}${quantity.unit === '-' || quantity.unit === '?' ? '' : ` ${escapeHtml(quantity.unit)}`}`;
+  const lines = [`<b>${escapeHtml(p.seriesName)}</b>`, at(qx, p.value[0]), at(qy, p.value[1])];
+  const item = Array.isArray(p.data) ? undefined : p.data;
+  if (item?.flagged) {
+    const details: FlagDetail[] = item.detail !== undefined ? (data.flag_details[item.detail] ?? []) : [];
+    const text = details.map((d) => escapeHtml(flagText(d, q))).join('; ');
+    lines.push(`<span style="color:#8c4119">flagged${text ? `: ${text}` : ''}</span>`);
+  }
+  return lines.join('<br/>');
 }
 
 /** Breaks text into lines of at most `width` characters at spaces (for the caption). */

@@ -1,7 +1,11 @@
 // The column names of a CSV file, read in the browser so the user can map them to
-// inputs and outputs before upload. RFC 4180 quoting: "a,b" and "say ""hi""".
+// inputs and outputs before upload. RFC 4180 quoting: "a,b" and "say ""hi""". The
+// separator (comma, semicolon or tab) and the units in square brackets are read as the
+// server reads them (shared/measurements/header.ts).
+import { detectSeparator, isDimensionlessUnit, parseColumnHeader } from '../../../shared/measurements/header.js';
+import type { Quantities } from './units.js';
 
-export function splitCsvLine(line: string): string[] {
+export function splitCsvLine(line: string, separator = ','): string[] {
   const cells: string[] = [];
   let cell = '';
   let quoted = false;
@@ -14,7 +18,7 @@ export function splitCsvLine(line: string): string[] {
       } else if (c === '"') quoted = false;
       else cell += c;
     } else if (c === '"') quoted = true;
-    else if (c === ',') {
+    else if (c === separator) {
       cells.push(cell);
       cell = '';
     } else cell += c;
@@ -26,15 +30,15 @@ export function splitCsvLine(line: string): string[] {
 /** The header row (first non-empty line, BOM stripped), or [] for an empty file. */
 export function csvHeader(text: string): string[] {
   const first = text.replace(/^\uFEFF/, '').split(/\r?\n/).find((l) => l.trim() !== '');
-  return first === undefined ? [] : splitCsvLine(first).filter((c) => c !== '');
+  return first === undefined ? [] : splitCsvLine(first, detectSeparator(first)).filter((c) => c !== '');
 }
 
-/** A first guess at the mapping: a column whose name equals an input or output (case-insensitive). */
+/** A first guess at the mapping: a column whose name (without unit or note) equals an input or output, any case. */
 export function guessMapping(columns: readonly string[], names: readonly string[]): Record<string, string> {
   const mapping: Record<string, string> = {};
   const lower = new Map(names.map((n) => [n.toLowerCase(), n]));
   for (const c of columns) {
-    const bare = c.replace(/\s*[[(].*[\])]\s*$/, '').trim().toLowerCase();
+    const bare = parseColumnHeader(c).name.replace(/\s*\(.*\)\s*$/, '').trim().toLowerCase();
     const hit = lower.get(bare);
     if (hit) mapping[c] = hit;
   }
@@ -51,4 +55,22 @@ export function mappingProblem(mapping: Record<string, string>): string | null {
     seen.add(t);
   }
   return null;
+}
+
+/**
+ * What the server will say about a mapped column's unit, before the upload: a dimensional
+ * quantity needs its unit in the header, a dimensionless one takes none. Null when fine.
+ */
+export function unitProblem(column: string, name: string, quantities: Quantities): string | null {
+  const { unit } = parseColumnHeader(column);
+  const si = quantities(name).si;
+  if (si === '1') return isDimensionlessUnit(unit) ? null : `${name} is dimensionless: write no unit or [-]`;
+  if (si === undefined) return null;
+  if (isDimensionlessUnit(unit)) return `${name} has a unit (SI: ${si}): write it in the header, e.g. “${name} [${si === 'K' ? 'degC' : si}]”`;
+  return null;
+}
+
+/** The unit a column header gives (`degC` of `fluid_temperature [degC]`), if any. */
+export function headerUnit(column: string): string | undefined {
+  return parseColumnHeader(column).unit;
 }

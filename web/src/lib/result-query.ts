@@ -28,6 +28,16 @@ export function isBound(text: string): boolean {
   return t === '' || Number.isFinite(Number(t));
 }
 
+/**
+ * A bound's text converted between SI and the units shown (°C ↔ K), rounded to 12
+ * significant digits so 26.2 °C reads back as 26.2; empty and invalid text kept as is.
+ */
+export function convertBound(text: string, convert: (v: number) => number): string {
+  const t = text.trim();
+  if (t === '' || !isBound(t)) return text;
+  return String(Number(convert(Number(t)).toPrecision(12)));
+}
+
 /** The `filter` values worth sending: named, with valid bounds, at least one bound set. */
 export function filterParams(filters: readonly RangeFilter[]): string[] {
   return filters
@@ -60,6 +70,7 @@ export interface ChartQuery {
   /** `method` or the name of a second input. */
   series: string;
   methods: string[];
+  flagged?: FlaggedFilter;
   filters: RangeFilter[];
   max: number;
   measurement?: number;
@@ -71,6 +82,7 @@ export function chartSearch(q: ChartQuery): string {
   append(sp, 'y', q.y);
   append(sp, 'series', q.series);
   if (q.methods.length) append(sp, 'method', q.methods.join(','));
+  if (q.flagged && q.flagged !== 'any') append(sp, 'flagged', q.flagged);
   for (const f of filterParams(q.filters)) sp.append('filter', f);
   append(sp, 'max', q.max);
   append(sp, 'measurement', q.measurement);

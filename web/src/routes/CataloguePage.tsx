@@ -73,24 +73,33 @@ export function CataloguePage() {
   const needle = text.trim().toLowerCase();
   const shown = catalogue.data.configurations.filter((c) => !configuration || c.id === configuration);
   const matches = (m: MethodInfo) => !needle || `${m.id} ${m.title} ${m.description} ${m.source}`.toLowerCase().includes(needle);
+  const found = catalogue.data.methods.filter((m) => shown.some((c) => c.id === m.configuration) && matches(m)).length;
 
   return (
     <div className="space-y-5">
       <div className="flex flex-wrap items-end gap-4">
         <h1 className="text-2xl font-semibold">Catalogue</h1>
-        <div>
+        <div className="w-full sm:w-auto">
           <label htmlFor="cat-configuration" className="field-label">Configuration</label>
-          <select id="cat-configuration" className="input w-72" value={configuration} onChange={(e) => setConfiguration(e.target.value)}>
+          <select id="cat-configuration" className="input sm:w-72" value={configuration} onChange={(e) => setConfiguration(e.target.value)}>
             <option value="">all configurations</option>
             {catalogue.data.configurations.map((c) => <option key={c.id} value={c.id}>{c.title}</option>)}
           </select>
         </div>
-        <div className="w-72">
+        <div className="w-full sm:w-72">
           <label htmlFor="cat-search" className="field-label">Search methods</label>
           <input id="cat-search" type="search" className="input" value={text} onChange={(e) => setText(e.target.value)} placeholder="e.g. Gnielinski, Churchill" />
         </div>
-        <p className="text-sm text-ink-600">{catalogue.data.methods.length} methods in {catalogue.data.configurations.length} configurations</p>
+        <p className="text-sm text-ink-600" data-testid="catalogue-count">
+          {needle || configuration ? `${found} of ${catalogue.data.methods.length} methods shown` : `${catalogue.data.methods.length} methods in ${catalogue.data.configurations.length} configurations`}
+        </p>
       </div>
+      {found === 0 && needle && (
+        <Empty>
+          No method {configuration ? 'of this configuration ' : ''}matches “{text.trim()}”. The search looks in each method’s id, name, description and source.{' '}
+          <button type="button" className="link" onClick={() => setText('')}>Clear the search</button>
+        </Empty>
+      )}
       {shown.map((c) => {
         const list = catalogue.data.methods.filter((m) => m.configuration === c.id && matches(m));
         if (!list.length && needle) return null;

@@ -1,16 +1,21 @@
-// Two runs side by side: points whose output changed, the relative differences, a
-// chart of them against an input, and both runs' exports.
+// Two runs side by side: points paired by the inputs the user picks (exactly or within a
+// relative tolerance), how many paired and how many are only in one run, the relative
+// differences of one output in a table and a chart, both study files' line diff, and both
+// runs' exports. When nothing pairs, the page says so, and never that nothing changed.
 import { useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
 import { CAUTION } from '../../../shared/export/caution.js';
-import { useCompare, type CompareRow } from '../api/compare.js';
-import { useRun, useRuns } from '../api/runs.js';
+import { displayUnit, makeUnitLookup } from '../../../shared/export/units.js';
+import { useCompare, usePickedRun, type CompareResponse, type CompareRow } from '../api/compare.js';
+import { useCatalogue } from '../api/methods.js';
+import { useRuns } from '../api/runs.js';
 import type { RunInfo } from '../api/types.js';
 import { DataTable } from '../components/DataTable.js';
 import { EChart } from '../components/EChart.js';
 import { ExportLinks } from '../components/ExportLinks.js';
 import { Empty, ErrorNote, Loading } from '../components/States.js';
+import { YamlDiff } from '../components/YamlDiff.js';
 import { exportChart } from '../lib/chart-export.js';
 import { buildCompareOption } from '../lib/compare-chart.js';
 import { formatNumber, formatPercent, formatTime, formatValue } from '../lib/format.js';
@@ -18,59 +23,141 @@ import { formatNumber, formatPercent, formatTime, formatValue } from '../lib/for
 const col = createColumnHelper<CompareRow>();
 const runLabel = (r: RunInfo) => `#${r.id} · ${r.study} v${r.study_version} · ${r.status} · ${formatTime(r.started_at)}`;
 const CHART_ROWS = 500;
+const count = (n: number) => n.toLocaleString('en');
+const plural = (n: number, one: string, many = `${one}s`) => `${count(n)} ${n === 1 ? one : many}`;
+
+/** Relative tolerances offered (0: equal values only). */
+const TOLERANCES = [
+  { value: 0, label: 'exact' },
+  { value: 1e-9, label: '1 in 10⁹' },
+  { value: 1e-6, label: '1 in 10⁶' },
+  { value: 1e-4, label: '0.01 %' },
+  { value: 1e-3, label: '0.1 %' },
+  { value: 1e-2, label: '1 %' },
+];
+
+function toleranceText(t: number): string {
+  if (t === 0) return 'equal values';
+  const preset = TOLERANCES.find((p) => p.value === t);
+  return `within ${preset ? preset.label : `${formatNumber(t * 100, 3)} %`}`;
+}
+
+function Counts({ c }: { c: CompareResponse }) {
+  return (
+    <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm sm:grid-cols-[auto_auto_auto_auto] md:grid-cols-[repeat(4,auto_auto)]" data-testid="compare-counts">
+      <dt className="text-ink-600">paired</dt>
+      <dd className="font-mono">{count(c.paired)} <span className="font-sans text-ink-600">results at {plural(c.points.paired, 'point')}</span></dd>
+      <dt className="text-ink-600">changed</dt>
+      <dd className="font-mono">{count(c.changed)}</dd>
+      <dt className="text-ink-600">only in a</dt>
+      <dd className="font-mono">{count(c.only_a)} <span className="font-sans text-ink-600">results, {plural(c.points.only_a, 'point')}</span></dd>
+      <dt className="text-ink-600">only in b</dt>
+      <dd className="font-mono">{count(c.only_b)} <span className="font-sans text-ink-600">results, {plural(c.points.only_b, 'point')}</span></dd>
+    </dl>
+  );
+}
+
+/** What the counts mean, in words: nothing paired, nothing changed, or how much did. */
+function Verdict({ c }: { c: CompareResponse }) {
+  const on = `${c.by.join(', ')} (${toleranceText(c.tolerance)})`;
+  if (c.paired === 0) {
+    return (
+      <div role="alert" className="rounded-[3px] border-l-[3px] border-ember-500 bg-ember-100 px-3 py-2 text-sm text-ink-900" data-testid="compare-verdict">
+        <strong className="font-semibold">Nothing paired</strong>, so nothing can be said about what changed: no point of run a has the same {on} as a point
+        of run b. If the runs differ in a fixed input (see the study files below), pair by the swept inputs only, or allow a tolerance.
+      </div>
+    );
+  }
+  return (
+    <p className="text-sm" data-testid="compare-verdict">
+      {c.changed === 0
+        ? `None of the ${plural(c.paired, 'paired result')} changed its ${c.output}.`
+        : `${plural(c.changed, 'paired result')} of ${count(c.paired)} changed ${c.output}.`}{' '}
+      <span className="text-ink-600">Points paired by {on}.</span>
+    </p>
+  );
+}
 
 export function ComparePage() {
   const [params, setParams] = useSearchParams();
-  const a = Number(params.get('a')) || 0;
-  const b = Number(params.get('b')) || 0;
+  const a = Number(params.get('a')) || undefined;
+  const b = Number(params.get('b')) || undefined;
   const output = params.get('output') ?? 'Nu';
   const changed = (params.get('changed') ?? 'yes') as 'yes' | 'any';
+  const tolerance = Number(params.get('tol')) || 0;
   const [page, setPage] = useState(1);
   const [pageSize, setPageSize] = useState(50);
   const [x, setX] = useState('');
   const [xLog, setXLog] = useState(true);
   const runs = useRuns();
-  const runA = useRun(a || -1);
-  const runB = useRun(b || -1);
-  const ready = a > 0 && b > 0;
-  const compare = useCompare(ready ? { a, b, output, page, pageSize, changed } : null);
-  const forChart = useCompare(ready ? { a, b, output, page: 1, pageSize: CHART_ROWS, changed: 'any' } : null);
+  const runA = usePickedRun(a);
+  const runB = usePickedRun(b);
+  const catalogue = useCatalogue();
 
-  const set = (key: string, value: string) => {
+  const inputsA = runA.data?.columns.inputs ?? [];
+  const inputsB = runB.data?.columns.inputs ?? [];
+  const inputs = [...new Set([...inputsA, ...inputsB])].sort();
+  // Default pairing: the inputs both runs have (an input only one run has cannot match).
+  const byParam = params.get('by');
+  const by = byParam !== null ? byParam.split(',').filter(Boolean) : inputs.filter((n) => inputsA.includes(n) && inputsB.includes(n));
+  const ready = a !== undefined && b !== undefined && runA.isSuccess && runB.isSuccess && by.length > 0;
+  const base = { a: a!, b: b!, output, by, tolerance };
+  const summary = useCompare(ready ? { ...base, page: 1, pageSize: 1, changed: 'any', yaml: true } : null);
+  const compare = useCompare(ready ? { ...base, page, pageSize, changed } : null);
+  const forChart = useCompare(ready ? { ...base, page: 1, pageSize: CHART_ROWS, changed: 'any' } : null);
+
+  const set = (changes: Record<string, string>) => {
     const next = new URLSearchParams(params);
-    if (value) next.set(key, value);
-    else next.delete(key);
+    for (const [key, value] of Object.entries(changes)) {
+      if (value) next.set(key, value);
+      else next.delete(key);
+    }
     setParams(next, { replace: true });
     setPage(1);
   };
+  const pickRun = (k: 'a' | 'b', value: string) => set({ [k]: value, by: '' }); // new runs: default pairing again
+  const toggleBy = (name: string) => set({ by: (by.includes(name) ? by.filter((n) => n !== name) : [...by, name]).sort().join(',') || ',' });
 
-  const inputs = [...new Set([...(runA.data?.columns.inputs ?? []), ...(runB.data?.columns.inputs ?? [])])];
   const outputs = [...new Set([...(runA.data?.columns.outputs ?? []), ...(runB.data?.columns.outputs ?? [])])];
+  const configuration = runA.data?.run.configuration ?? runB.data?.run.configuration;
+  const unitOf = useMemo(() => makeUnitLookup(catalogue.data?.methods.filter((m) => m.configuration === configuration) ?? []), [catalogue.data, configuration]);
+  // `Re [-]`, `velocity [m/s]` (SI, as the API sends them), as the run page labels them.
+  const withUnit = (name: string) => {
+    const u = unitOf(name);
+    return u === undefined ? name : `${name} [${displayUnit(u)}]`;
+  };
   const xName = x || inputs.find((n) => n === 'Re' || n === 'Ra') || inputs[0] || '';
+  // Inputs in which run b's paired point differs from run a's (not paired by, or within the tolerance).
+  const rowsShown = compare.data?.rows ?? [];
+  const differingB = inputs.filter((n) => rowsShown.some((r) => r.inputs_b[n] !== r.inputs[n]));
   const columns = useMemo(
     () => [
       col.accessor('method', { header: 'method', cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
-      ...inputs.map((n) => col.accessor((r) => r.inputs[n], { id: n, header: () => <span className="font-mono">{n}</span>, meta: { numeric: true }, cell: (c) => formatValue(c.getValue()) })),
-      col.accessor('a', { header: `run a: ${output}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), 6) }),
-      col.accessor('b', { header: `run b: ${output}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), 6) }),
+      ...inputs.map((n) => col.accessor((r) => r.inputs[n], { id: n, header: () => <span className="font-mono">{withUnit(n)}</span>, meta: { numeric: true }, cell: (c) => formatValue(c.getValue()) })),
+      ...differingB.map((n) =>
+        col.accessor((r) => r.inputs_b[n], { id: `b:${n}`, header: () => <span className="font-mono">{withUnit(n)} in b</span>, meta: { numeric: true }, cell: (c) => formatValue(c.getValue()) }),
+      ),
+      col.accessor('a', { header: `run a: ${withUnit(output)}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), 6) }),
+      col.accessor('b', { header: `run b: ${withUnit(output)}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), 6) }),
       col.accessor('rel_diff', {
-        header: '(b − a)/|a|',
+        header: '(b − a)/|a| [%]',
         meta: { numeric: true },
-        cell: (c) => <span className={c.getValue() ? 'text-copper-700' : 'text-ink-400'}>{formatPercent(c.getValue())}</span>,
+        cell: (c) => <span className={c.getValue() ? 'text-ember-700' : 'text-ink-400'}>{formatPercent(c.getValue())}</span>,
       }),
     ],
-    [inputs.join(','), output],
+    [inputs.join(','), differingB.join(','), output, unitOf],
   );
-  const chartOption = useMemo(() => (forChart.data && xName ? buildCompareOption(forChart.data.rows, xName, output, { xLog }) : null), [forChart.data, xName, output, xLog]);
+  const chartOption = useMemo(() => (forChart.data && xName ? buildCompareOption(forChart.data.rows, xName, output, { xLog, xLabel: withUnit(xName) }) : null), [forChart.data, xName, output, xLog, unitOf]);
 
   const save = (type: 'svg' | 'png') => {
     if (!forChart.data) return;
     const { a: ra, b: rb } = forChart.data;
     const option = buildCompareOption(forChart.data.rows, xName, output, {
       xLog,
+      xLabel: withUnit(xName),
       title: {
         text: `Change of ${output} between run #${ra.id} and run #${rb.id}`,
-        subtext: `a: run #${ra.id}, ${ra.study} v${ra.study_version} · b: run #${rb.id}, ${rb.study} v${rb.study_version}`,
+        subtext: `a: run #${ra.id}, ${ra.study} v${ra.study_version} · b: run #${rb.id}, ${rb.study} v${rb.study_version} · paired by ${forChart.data.by.join(', ')}`,
         footer: CAUTION,
       },
     });
@@ -78,93 +165,139 @@ export function ComparePage() {
   };
 
   const runOptions = runs.data?.runs ?? [];
+  const pickedError = runA.error ?? runB.error;
   return (
     <div className="space-y-5">
-      <h1 className="text-2xl font-semibold">Compare two runs</h1>
-      <section className="card" aria-label="Runs to compare">
+      <h1 className="text-2xl font-bold tracking-tight">Compare two runs</h1>
+      <section className="card space-y-4" aria-label="Runs to compare">
         {runs.isError && <ErrorNote error={runs.error} title="The runs could not be listed" />}
         <div className="flex flex-wrap items-end gap-3">
           {(['a', 'b'] as const).map((k) => (
-            <div key={k}>
+            <div key={k} className="w-full sm:w-96">
               <label htmlFor={`run-${k}`} className="field-label">run {k}</label>
-              <select id={`run-${k}`} className="input w-96" value={k === 'a' ? a || '' : b || ''} onChange={(e) => set(k, e.target.value)}>
-                <option value="">(choose a run)</option>
+              <select id={`run-${k}`} className="input" value={(k === 'a' ? a : b) ?? ''} onChange={(e) => pickRun(k, e.target.value)}>
+                <option value="">{runs.isPending ? '(loading the runs…)' : '(choose a run)'}</option>
                 {runOptions.map((r) => <option key={r.id} value={r.id}>{runLabel(r)}</option>)}
               </select>
             </div>
           ))}
           <div>
             <label htmlFor="compare-output" className="field-label">output</label>
-            <select id="compare-output" className="input w-auto" value={output} onChange={(e) => set('output', e.target.value)}>
+            <select id="compare-output" className="input w-auto" value={output} onChange={(e) => set({ output: e.target.value })}>
               {[...new Set([output, ...outputs])].map((n) => <option key={n} value={n}>{n}</option>)}
             </select>
           </div>
           <div>
             <label htmlFor="compare-changed" className="field-label">show</label>
-            <select id="compare-changed" className="input w-auto" value={changed} onChange={(e) => set('changed', e.target.value)}>
+            <select id="compare-changed" className="input w-auto" value={changed} onChange={(e) => set({ changed: e.target.value })}>
               <option value="yes">changed points only</option>
               <option value="any">every paired point</option>
             </select>
           </div>
         </div>
+        {inputs.length > 0 && (
+          <div className="flex flex-wrap items-end gap-x-6 gap-y-3">
+            <fieldset>
+              <legend className="field-label">pair points by</legend>
+              <div className="flex flex-wrap gap-x-4 gap-y-1">
+                {inputs.map((n) => (
+                  <label key={n} className="flex items-center gap-1.5 text-sm">
+                    <input type="checkbox" checked={by.includes(n)} onChange={() => toggleBy(n)} />
+                    <span className="font-mono">{n}</span>
+                    {!(inputsA.includes(n) && inputsB.includes(n)) && <span className="text-xs text-ink-600">(only in {inputsA.includes(n) ? 'a' : 'b'})</span>}
+                  </label>
+                ))}
+              </div>
+            </fieldset>
+            <div>
+              <label htmlFor="compare-tolerance" className="field-label">numbers match within</label>
+              <select id="compare-tolerance" className="input w-auto" value={tolerance} onChange={(e) => set({ tol: e.target.value === '0' ? '' : e.target.value })}>
+                {TOLERANCES.map((t) => <option key={t.value} value={t.value}>{t.label}</option>)}
+              </select>
+            </div>
+          </div>
+        )}
       </section>
 
-      {!ready ? (
+      {a === undefined || b === undefined ? (
         <Empty>Choose two runs. From a study page you can tick two runs and compare them.</Empty>
-      ) : compare.isPending ? (
-        <Loading what="Comparing" />
-      ) : compare.isError ? (
-        <ErrorNote error={compare.error} title="The runs could not be compared" />
+      ) : pickedError ? (
+        <ErrorNote error={pickedError} title="A run could not be loaded" />
+      ) : !runA.isSuccess || !runB.isSuccess ? (
+        <Loading what="Loading the runs" />
+      ) : by.length === 0 ? (
+        <Empty>Pick at least one input to pair the points of the two runs by.</Empty>
+      ) : summary.isPending ? (
+        <Loading what="Pairing the points of the two runs" />
+      ) : summary.isError ? (
+        <ErrorNote error={summary.error} title="The runs could not be compared" />
       ) : (
         <>
-          <section className="card" aria-label="Comparison summary">
-            <div className="flex flex-wrap items-start gap-6">
-              <dl className="grid grid-cols-2 gap-x-6 gap-y-1 text-sm md:grid-cols-4" data-testid="compare-counts">
-                <dt className="text-ink-600">{changed === 'yes' ? 'listed (changed)' : 'paired points'}</dt><dd className="font-mono">{compare.data.total}</dd>
-                <dt className="text-ink-600">changed</dt><dd className="font-mono">{compare.data.changed}</dd>
-                <dt className="text-ink-600">only in a</dt><dd className="font-mono">{compare.data.only_a}</dd>
-                <dt className="text-ink-600">only in b</dt><dd className="font-mono">{compare.data.only_b}</dd>
-              </dl>
-              <div className="ml-auto space-y-1.5">
-                <div className="flex items-center gap-2 text-xs"><Link className="link w-16" to={`/runs/${a}`}>run a #{a}</Link><ExportLinks runId={a} /></div>
-                <div className="flex items-center gap-2 text-xs"><Link className="link w-16" to={`/runs/${b}`}>run b #{b}</Link><ExportLinks runId={b} /></div>
+          <section className="card space-y-3" aria-label="Comparison summary">
+            <div className="flex flex-wrap items-start gap-x-6 gap-y-3">
+              <Counts c={summary.data} />
+              <div className="space-y-1.5 sm:ml-auto">
+                <div className="flex flex-wrap items-center gap-2 text-xs"><Link className="link w-16" to={`/runs/${a}`}>run a #{a}</Link><ExportLinks runId={a} /></div>
+                <div className="flex flex-wrap items-center gap-2 text-xs"><Link className="link w-16" to={`/runs/${b}`}>run b #{b}</Link><ExportLinks runId={b} /></div>
               </div>
             </div>
+            <Verdict c={summary.data} />
           </section>
 
-          <section className="card space-y-3" aria-labelledby="compare-chart-heading">
-            <div className="flex flex-wrap items-end gap-3">
-              <h2 id="compare-chart-heading" className="card-title mb-0 mr-auto">Relative difference</h2>
-              <div>
-                <label htmlFor="compare-x" className="field-label">against</label>
-                <select id="compare-x" className="input w-auto" value={xName} onChange={(e) => setX(e.target.value)}>
-                  {inputs.map((n) => <option key={n} value={n}>{n}</option>)}
-                </select>
-              </div>
-              <label className="flex items-center gap-1 pb-1.5 text-sm"><input type="checkbox" checked={xLog} onChange={(e) => setXLog(e.target.checked)} /> log x</label>
-              <button type="button" className="btn btn-small" onClick={() => save('svg')} disabled={!chartOption}>Chart as SVG</button>
-              <button type="button" className="btn btn-small" onClick={() => save('png')} disabled={!chartOption}>Chart as PNG</button>
-            </div>
-            {forChart.isError ? <ErrorNote error={forChart.error} /> : chartOption && forChart.data!.rows.length > 0 ? (
-              <>
-                <EChart option={chartOption} height={360} label={`relative difference of ${output} against ${xName}`} />
-                {forChart.data!.total > CHART_ROWS && <p className="text-xs text-ink-600">The chart shows the first {CHART_ROWS} of {forChart.data!.total} pairs; the table pages through all of them.</p>}
-              </>
-            ) : forChart.isPending ? <Loading what="Drawing" /> : <Empty>No paired points to plot.</Empty>}
+          <section className="card" aria-labelledby="compare-yaml-heading">
+            <h2 id="compare-yaml-heading" className="card-title">Study files</h2>
+            <YamlDiff a={summary.data.yaml?.a ?? ''} b={summary.data.yaml?.b ?? ''} />
           </section>
 
-          <section className="card" aria-labelledby="compare-table-heading">
-            <h2 id="compare-table-heading" className="card-title">Paired points</h2>
-            <DataTable
-              label="Compared points"
-              sortable={false}
-              columns={columns}
-              data={compare.data.rows}
-              busy={compare.isFetching && compare.isPlaceholderData}
-              empty={changed === 'yes' ? `No point changed its ${output}.` : 'The runs share no point.'}
-              server={{ total: compare.data.total, page, pageSize, sorting: [], onSortingChange: () => {}, onPageChange: setPage, onPageSizeChange: (n) => { setPageSize(n); setPage(1); } }}
-            />
-          </section>
+          {summary.data.paired > 0 && (
+            <>
+              <section className="card space-y-3" aria-labelledby="compare-chart-heading">
+                <div className="flex flex-wrap items-end gap-3">
+                  <h2 id="compare-chart-heading" className="card-title mb-0 mr-auto">Relative difference</h2>
+                  <div>
+                    <label htmlFor="compare-x" className="field-label">against</label>
+                    <select id="compare-x" className="input w-auto" value={xName} onChange={(e) => setX(e.target.value)}>
+                      {inputs.map((n) => <option key={n} value={n}>{n}</option>)}
+                    </select>
+                  </div>
+                  <label className="flex items-center gap-1 pb-1.5 text-sm"><input type="checkbox" checked={xLog} onChange={(e) => setXLog(e.target.checked)} /> log x</label>
+                  <button type="button" className="btn btn-small" onClick={() => save('svg')} disabled={!chartOption}>Chart as SVG</button>
+                  <button type="button" className="btn btn-small" onClick={() => save('png')} disabled={!chartOption}>Chart as PNG</button>
+                </div>
+                {forChart.isError ? (
+                  <ErrorNote error={forChart.error} title="The chart could not be drawn" />
+                ) : forChart.isPending ? (
+                  <Loading what="Drawing" />
+                ) : chartOption && forChart.data.rows.some((r) => r.rel_diff !== null) ? (
+                  <>
+                    <EChart option={chartOption} height={360} label={`relative difference of ${output} against ${xName}`} />
+                    {forChart.data.total > CHART_ROWS && <p className="text-xs text-ink-600">The chart shows the first {count(CHART_ROWS)} of {count(forChart.data.total)} pairs; the table pages through all of them.</p>}
+                  </>
+                ) : (
+                  <Empty>No paired result has both values of {output} to plot.</Empty>
+                )}
+              </section>
+
+              <section className="card" aria-labelledby="compare-table-heading">
+                <h2 id="compare-table-heading" className="card-title">Paired points</h2>
+                {compare.isPending ? (
+                  <Loading what="Loading the pairs" />
+                ) : compare.isError ? (
+                  <ErrorNote error={compare.error} title="The pairs could not be listed" />
+                ) : (
+                  <DataTable
+                    label="Compared points"
+                    sortable={false}
+                    columns={columns}
+                    data={compare.data.rows}
+                    busy={compare.isFetching && compare.isPlaceholderData}
+                    empty={changed === 'yes' ? `No paired point changed its ${output}.` : 'No pairs.'}
+                    server={{ total: compare.data.total, page, pageSize, sorting: [], onSortingChange: () => {}, onPageChange: setPage, onPageSizeChange: (n) => { setPageSize(n); setPage(1); } }}
+                  />
+                )}
+              </section>
+            </>
+          )}
         </>
       )}
     </div>

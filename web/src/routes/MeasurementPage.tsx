@@ -35,7 +35,7 @@ export function MeasurementPage() {
       </section>
       <section className="card" aria-labelledby="rows-heading">
         <h2 id="rows-heading" className="card-title">Rows</h2>
-        <DataTable label="Measured rows" columns={columns} data={rows} pageSize={50} />
+        <DataTable label="Measured rows" columns={columns} data={rows} pageSize={50} empty="This measurement has no rows." />
       </section>
     </div>
   );

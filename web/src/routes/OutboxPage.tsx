@@ -23,7 +23,7 @@ export function OutboxPage() {
   const shown = messages.find((m) => m.id === open) ?? messages[0];
   return (
     <div className="space-y-5">
-      <div className="flex items-baseline gap-3">
+      <div className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
         <h1 className="text-2xl font-semibold">Outbox</h1>
         <p className="text-sm text-ink-600">development mode: mail is kept here instead of being sent</p>
         <button type="button" className="btn btn-small ml-auto" onClick={() => void outbox.refetch()}>Refresh</button>

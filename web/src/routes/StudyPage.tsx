@@ -3,9 +3,9 @@
 import { useMemo, useState } from 'react';
 import { Link, useNavigate, useParams } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
+import { usePickedRun } from '../api/compare.js';
 import { useCatalogue } from '../api/methods.js';
 import { useMeasurements, type Measurement } from '../api/measurements.js';
-import { useRun } from '../api/runs.js';
 import { useSession } from '../api/session.js';
 import { useStudy } from '../api/studies.js';
 import type { RunInfo } from '../api/types.js';
@@ -30,7 +30,7 @@ export function StudyPage() {
   const [versionId, setVersionId] = useState<number | null>(null);
   const [picked, setPicked] = useState<number[]>([]);
   const latestRun = study.data?.runs[0];
-  const latest = useRun(latestRun?.id ?? -1);
+  const latest = usePickedRun(latestRun?.id);
   const role = session.data?.user.role;
 
   const togglePick = (runId: number) =>
@@ -100,12 +100,12 @@ export function StudyPage() {
 
       <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_minmax(0,1.3fr)]">
         <section className="card min-w-0" aria-labelledby="yaml-heading">
-          <div className="mb-2 flex items-center gap-3">
+          <div className="mb-2 flex flex-wrap items-center gap-3">
             <h2 id="yaml-heading" className="card-title mb-0">Study file</h2>
             {versions.length > 0 && (
-              <label className="ml-auto flex items-center gap-2 text-xs text-ink-600">
+              <label className="ml-auto flex min-w-0 max-w-full items-center gap-2 text-xs text-ink-600">
                 version
-                <select className="input w-auto py-0.5" value={shown?.id ?? ''} onChange={(e) => setVersionId(Number(e.target.value))}>
+                <select className="input w-auto min-w-0 py-0.5" value={shown?.id ?? ''} onChange={(e) => setVersionId(Number(e.target.value))}>
                   {versions.map((v) => (
                     <option key={v.id} value={v.id}>v{v.version} · {formatTime(v.created_at)} · {v.hash.slice(0, 8)}</option>
                   ))}
@@ -125,7 +125,7 @@ export function StudyPage() {
         </section>
 
         <section className="card min-w-0" aria-labelledby="runs-heading">
-          <div className="mb-2 flex items-center gap-3">
+          <div className="mb-2 flex flex-wrap items-center gap-3">
             <h2 id="runs-heading" className="card-title mb-0">Runs</h2>
             <button type="button" className="btn btn-small ml-auto" disabled={picked.length !== 2} onClick={() => navigate(`/compare?a=${Math.min(...picked)}&b=${Math.max(...picked)}`)}>
               Compare the two picked runs

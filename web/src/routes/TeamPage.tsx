@@ -94,7 +94,7 @@ export function TeamPage() {
       <section className="card" aria-labelledby="members-heading">
         <h2 id="members-heading" className="card-title">Members</h2>
         {update.isError && <div className="mb-2"><ErrorNote error={update.error} title="The change was refused" /></div>}
-        {users.isPending ? <Loading /> : users.isError ? <ErrorNote error={users.error} /> : <DataTable label="Team members" columns={userColumns} data={users.data.users} />}
+        {users.isPending ? <Loading what="Loading the members" /> : users.isError ? <ErrorNote error={users.error} title="The members could not be listed" /> : <DataTable label="Team members" columns={userColumns} data={users.data.users} empty="No members yet." />}
       </section>
       <div className="grid grid-cols-1 gap-5 xl:grid-cols-[24rem_minmax(0,1fr)]">
         <section className="card" aria-labelledby="invite-heading">
@@ -117,12 +117,12 @@ export function TeamPage() {
         </section>
         <section className="card min-w-0" aria-labelledby="invites-heading">
           <h2 id="invites-heading" className="card-title">Invitations</h2>
-          {invites.isPending ? <Loading /> : invites.isError ? <ErrorNote error={invites.error} /> : <DataTable label="Invitations" columns={inviteColumns} data={invites.data.invites} empty="No invitations sent." pageSize={10} />}
+          {invites.isPending ? <Loading what="Loading the invitations" /> : invites.isError ? <ErrorNote error={invites.error} title="The invitations could not be listed" /> : <DataTable label="Invitations" columns={inviteColumns} data={invites.data.invites} empty="No invitations sent." pageSize={10} />}
         </section>
       </div>
       <section className="card" aria-labelledby="audit-heading">
         <h2 id="audit-heading" className="card-title">Audit log</h2>
-        {audit.isPending ? <Loading /> : audit.isError ? <ErrorNote error={audit.error} /> : <DataTable label="Audit log" columns={auditColumns} data={audit.data.entries} pageSize={20} />}
+        {audit.isPending ? <Loading what="Loading the audit log" /> : audit.isError ? <ErrorNote error={audit.error} title="The audit log could not be loaded" /> : <DataTable label="Audit log" columns={auditColumns} data={audit.data.entries} pageSize={20} empty="Nothing recorded yet." />}
       </section>
     </div>
   );

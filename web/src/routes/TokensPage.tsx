@@ -47,8 +47,8 @@ export function TokensPage() {
       </p>
       <section className="card max-w-3xl" aria-labelledby="new-token-heading">
         <h2 id="new-token-heading" className="card-title">New token</h2>
-        <form onSubmit={submit} className="flex items-end gap-2" aria-label="New token">
-          <div className="flex-1">
+        <form onSubmit={submit} className="flex flex-wrap items-end gap-2" aria-label="New token">
+          <div className="min-w-48 flex-1">
             <label htmlFor="token-name" className="field-label">What it is for</label>
             <input id="token-name" required maxLength={100} className="input" value={name} onChange={(e) => setName(e.target.value)} placeholder="e.g. CI on main" />
           </div>
@@ -70,7 +70,7 @@ export function TokensPage() {
       <section className="card max-w-3xl" aria-labelledby="tokens-heading">
         <h2 id="tokens-heading" className="card-title">Your tokens</h2>
         {revoke.isError && <div className="mb-2"><ErrorNote error={revoke.error} /></div>}
-        {tokens.isPending ? <Loading /> : tokens.isError ? <ErrorNote error={tokens.error} /> : <DataTable label="API tokens" columns={columns} data={tokens.data.tokens} empty="No tokens." />}
+        {tokens.isPending ? <Loading what="Loading your tokens" /> : tokens.isError ? <ErrorNote error={tokens.error} title="Your tokens could not be listed" /> : <DataTable label="API tokens" columns={columns} data={tokens.data.tokens} empty="No tokens yet. Make one above for CI." />}
       </section>
     </div>
   );
