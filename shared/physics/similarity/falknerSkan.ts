@@ -2,11 +2,14 @@
 //   f''' + f f'' + β (1 − f'²) = 0,  β = 2m/(m+1),
 //   η = y·√((m+1)U/(2νx)),  ψ = √(2νxU/(m+1))·f(η),
 //   f(0) = f_w, f'(0) = 0, f'(∞) = 1.
-// Blasius is m = β = 0. Solved by shooting on s = f''(0) (Newton with a bracket) with an
-// adaptive Dormand–Prince integrator; η∞ grows until s no longer changes.
-import { integrate } from './dormandPrince.js';
+// Blasius is m = β = 0. Solved by shooting on s = f''(0): Newton with the variational equation,
+// kept inside a sign bracket, on a Taylor-series integration (taylor.ts) whose precision rises
+// with the iterate's (cheap low-order shots far from the root, full precision for the last two).
+// The outer edge η∞ is where the layer has decayed (F = ∫f has grown by EDGE_EXPONENT past its
+// minimum), with the asymptotic far-field condition imposed there instead of f'(η∞) = 1.
 import { SolutionTrace, TraceBuilder } from './trace.js';
 import { LruCache, registerCache, solveCounts } from './cache.js';
+import { horner, orderFor, radiusStep, SERIES_LENGTH } from './taylor.js';
 
 export type MomentumStatus = 'attached' | 'separation' | 'not-converged';
 
@@ -23,9 +26,12 @@ export interface FalknerSkanSolution {
   wallShear: number;
   /** η_H where f' = 0.99 (NaN unless attached). */
   eta99: number;
-  /** Outer edge of the converged domain. */
+  /** Outer edge of the domain. */
   etaInf: number;
-  /** Relative change of f''(0) between the last two η∞ (the η∞-convergence check). */
+  /**
+   * Relative change of f''(0) if the plain condition f'(η∞) = 1 replaced the asymptotic one at
+   * this η∞: the size of the far-field correction, far above what is left of the η∞ error.
+   */
   etaInfChange: number;
   /** The solution, stored for the thermal quadratures (undefined unless attached). */
   trace?: SolutionTrace;
@@ -34,17 +40,33 @@ export interface FalknerSkanSolution {
   etaFMin: number;
   /** Memo of derived thermal quantities keyed by Prandtl number (filled by thermal.ts). */
   thermalMemo: Map<string, number>;
-  /** Newton iterations (integrations) spent. */
+  /** Shots (integrations) spent. */
   integrations: number;
 }
 
 /** Below this f''(0) (Hartree scaling) the layer counts as blown off: see `solveFalknerSkan`. */
 export const BLOWOFF_WALL_SHEAR = 1e-9;
 
-const RTOL = 1e-12;
-const ATOL = 1e-14;
+/** Local error per Taylor step of the final shot. */
+const EPS_FINAL = 1e-13;
+/** The cheapest shots: far from the root their error does not matter. */
+const EPS_COARSE = 1e-5;
+/**
+ * A full-precision shot is taken once the iterate is this close, and accepted when its Newton
+ * correction δ is below ACCEPT_CHANGE: the solution is then moved by δ along the variational
+ * solution, which leaves an error of order δ² (1e-14).
+ */
+const FINAL_ERROR = 3e-8;
+const ACCEPT_CHANGE = 1e-7;
+/**
+ * The edge: F − F_min = 29. Beyond it f'' ≈ s·e^{−(F − F_min)} (exactly so on the flat plate) is
+ * below 3e-13·s; the asymptotic condition takes up that remainder to a relative O(1/f²).
+ */
+const EDGE_EXPONENT = 29;
 const ETA_INF_MAX = 120;
-const ETA_CHANGE_TOL = 1e-11;
+const MAX_STEPS = 5000;
+/** Relative error of `initialGuess` assumed before the first shot. */
+const GUESS_ERROR = 0.05;
 
 /** Converts the two wedge parameters; m ≤ −1 has no wedge-flow meaning. */
 export function hartreeBeta(m: number): number {
@@ -63,119 +85,296 @@ export function wallStreamFunction(m: number, wallBlowing: number): number {
   return -wallBlowing * Math.sqrt(2 / (m + 1));
 }
 
-interface ShotResult {
-  /** f'(η∞) − 1, or ±Infinity when the trial blew up on the way. */
+// ------------------------------------------------------------------------------ one shot
+
+interface Shot {
+  /** 'edge': reached the outer edge; 'over'/'under': a trial that clearly overshoots f' = 1 or turns back below it. */
+  kind: 'edge' | 'over' | 'under' | 'failed';
+  /** Far-field residual at the edge (±Infinity for over/under: only its sign counts). */
   residual: number;
-  /** ∂f'(η∞)/∂s from the variational equations (NaN after a blow-up). */
+  /** ∂residual/∂s from the variational equation (NaN when not carried); at the exit for over/under. */
   slope: number;
-  trace?: SolutionTrace;
+  /** f' − 1 at the edge (for the size of the far-field correction) or where the trial left. */
+  plain: number;
+  /** ∂f'/∂s at the edge. */
+  slopePlain: number;
+  /** η∞, or where the trial left. */
+  edge: number;
+  /** The steps, when kept (with ∂/∂s when the variational equation was carried). */
+  steps?: TraceBuilder;
 }
 
-function shoot(beta: number, fw: number, s: number, etaInf: number, keepTrace: boolean): ShotResult {
-  // y = [F, f, f', f'', ∂f/∂s, ∂f'/∂s, ∂f''/∂s]
-  const rhs = (_t: number, y: Float64Array, dy: Float64Array): void => {
-    const f = y[1], g = y[2], h = y[3];
-    dy[0] = f;
-    dy[1] = g;
-    dy[2] = h;
-    dy[3] = -f * h - beta * (1 - g * g);
-    dy[4] = y[5];
-    dy[5] = y[6];
-    dy[6] = -(y[4] * h + f * y[6]) + 2 * beta * g * y[5];
-  };
-  const builder = keepTrace ? new TraceBuilder() : undefined;
-  const row = [0, 0, 0, 0, 0, 0];
-  let blowUp = 0;
-  const res = integrate(rhs, 0, etaInf, Float64Array.of(0, fw, 0, s, 0, 0, 1), {
-    rtol: RTOL,
-    atol: ATOL,
-    errorComponents: 4,
-    initialStep: 1e-3,
-    onStep: (t, y, dy) => {
-      const g = y[2];
-      // The attached profile rises monotonically to f' = 1: a trial that clearly overshoots has
-      // s too large, one that turns back well below 1 (f'' < 0) has s too small; the sign is all
-      // we need. Trials near the root run to η∞ and give Newton its slope.
-      if (g > 1.2) {
-        blowUp = 1;
-        return false;
-      }
-      if (y[3] < 0 && g < 0.8) {
-        blowUp = -1;
-        return false;
-      }
-      if (builder) {
-        row[0] = y[0];
-        row[1] = y[1];
-        row[2] = g;
-        row[3] = y[3];
-        row[4] = dy[3];
-        row[5] = -(g * y[3] + y[1] * dy[3]) + 2 * beta * g * y[3];
-        builder.push(t, row);
-      }
-      return true;
-    },
-  });
-  if (blowUp !== 0 || res.status !== 'done') {
-    const sign = blowUp !== 0 ? blowUp : Math.sign(res.y[2] - 1) || 1;
-    return { residual: sign * Infinity, slope: NaN };
+// Series buffers: F, f, f', f'' and the variational U = ∂F/∂s, u = ∂f/∂s, v = ∂f'/∂s, w = ∂f''/∂s.
+const sF = new Float64Array(SERIES_LENGTH);
+const sU = new Float64Array(SERIES_LENGTH);
+const sf = new Float64Array(SERIES_LENGTH);
+const sg = new Float64Array(SERIES_LENGTH);
+const sh = new Float64Array(SERIES_LENGTH);
+const su = new Float64Array(SERIES_LENGTH);
+const sv = new Float64Array(SERIES_LENGTH);
+const sw = new Float64Array(SERIES_LENGTH);
+const SENSITIVITIES = [sU, su, sv, sw];
+
+/**
+ * Taylor coefficients up to order p (F to p + 1) of the Falkner–Skan system, and of its
+ * variational equation u''' = −(u f'' + f u'') + 2β f' u' when `variational`.
+ */
+function series(beta: number, p: number, variational: boolean): void {
+  for (let k = 0; k < p; k++) {
+    // (f'²)_k by symmetry: twice the products below the middle, plus the middle square.
+    let gg = 0;
+    const half = k >> 1;
+    for (let j = 0; j < half + (k & 1); j++) gg += sg[j] * sg[k - j];
+    gg *= 2;
+    if ((k & 1) === 0) gg += sg[half] * sg[half];
+    let fh = 0;
+    for (let j = 0; j <= k; j++) fh += sf[j] * sh[k - j];
+    const inv = 1 / (k + 1);
+    sF[k + 1] = sf[k] * inv;
+    sf[k + 1] = sg[k] * inv;
+    sg[k + 1] = sh[k] * inv;
+    sh[k + 1] = (beta * (gg - (k === 0 ? 1 : 0)) - fh) * inv;
+    if (variational) {
+      let cw = 0;
+      for (let j = 0; j <= k; j++) cw += 2 * beta * sg[j] * sv[k - j] - su[j] * sh[k - j] - sf[j] * sw[k - j];
+      sU[k + 1] = su[k] * inv;
+      su[k + 1] = sv[k] * inv;
+      sv[k + 1] = sw[k] * inv;
+      sw[k + 1] = cw * inv;
+    }
   }
-  return { residual: res.y[2] - 1, slope: res.y[5], trace: builder?.build() };
+  sF[p + 1] = sf[p] / (p + 1);
+  if (variational) {
+    sU[p + 1] = su[p] / (p + 1);
+    su[p + 1] = sv[p] / (p + 1);
+    sv[p + 1] = sw[p] / (p + 1);
+    sw[p + 1] = 0;
+  }
+  // The trace keeps p + 2 coefficients of every series: the top one is exact for f and f'.
+  sf[p + 1] = sg[p] / (p + 1);
+  sg[p + 1] = sh[p] / (p + 1);
+  sh[p + 1] = 0;
 }
+
+/** Step length for the series just computed, controlled by f, f' and f'' (taylor.ts `radiusStep`). */
+function stepFor(p: number, epsRoot: number): number {
+  const scale = Math.max(1, Math.abs(sf[0]), Math.abs(sg[0]), Math.abs(sh[0]));
+  const last = Math.max(Math.abs(sf[p]), Math.abs(sg[p]), Math.abs(sh[p]));
+  const previous = Math.max(Math.abs(sf[p - 1]), Math.abs(sg[p - 1]), Math.abs(sh[p - 1]));
+  return radiusStep(scale, previous, last, p, epsRoot);
+}
+
+/**
+ * Where F reaches `target` within a step of length `h` (F rises there: f > 0), by Newton on the
+ * step's polynomial from the linear estimate, kept inside [0, h].
+ */
+function edgeInStep(target: number, terms: number, h: number): number {
+  let tau = h * Math.min(1, Math.max(0, (target - sF[0]) / (horner(sF, 0, terms, h) - sF[0])));
+  for (let it = 0; it < 50; it++) {
+    const r = horner(sF, 0, terms, tau) - target;
+    const d = horner(sf, 0, terms - 1, tau);
+    const next = Math.min(h, Math.max(0, tau - r / d));
+    if (Math.abs(next - tau) <= 1e-15 * Math.max(1, h)) return next;
+    tau = next;
+  }
+  return tau;
+}
+
+/**
+ * One trial f''(0) = s, integrated at local precision `eps` until the layer has decayed (or
+ * to `minEdge`, if farther). `variational` also carries ∂/∂s for Newton's slope.
+ */
+function shoot(beta: number, fw: number, s: number, eps: number, variational: boolean, keepTrace: boolean, minEdge: number): Shot {
+  const p = orderFor(eps);
+  const epsRoot = Math.pow(eps, 1 / p);
+  const terms = p + 2;
+  const builder = keepTrace ? new TraceBuilder(terms, variational ? 1 : 0) : undefined;
+  let eta = 0;
+  let F = 0, f = fw, g = 0, h = s;
+  let U = 0, u = 0, v = 0, w = 1;
+  let FMin = 0;
+  let stopAt = Infinity;
+  for (let step = 0; step < MAX_STEPS; step++) {
+    sF[0] = F;
+    sf[0] = f;
+    sg[0] = g;
+    sh[0] = h;
+    if (variational) {
+      sU[0] = U;
+      su[0] = u;
+      sv[0] = v;
+      sw[0] = w;
+    }
+    series(beta, p, variational);
+    let dt = stepFor(p, epsRoot);
+    if (!(dt > 1e-9)) return failedShot();
+    if (stopAt === Infinity && eta + dt > ETA_INF_MAX) return failedShot();
+    // The edge: F − F_min reaches EDGE_EXPONENT within this step.
+    const target = FMin + EDGE_EXPONENT;
+    if (stopAt === Infinity && horner(sF, 0, terms, dt) >= target) stopAt = Math.max(eta + edgeInStep(target, terms, dt), minEdge);
+    const last = eta + dt >= stopAt;
+    if (last) dt = stopAt - eta;
+    builder?.push(eta, sF, sf, sg, sh, SENSITIVITIES);
+    F = horner(sF, 0, terms, dt);
+    f = horner(sf, 0, p + 1, dt);
+    g = horner(sg, 0, p + 1, dt);
+    h = horner(sh, 0, p + 1, dt);
+    if (variational) {
+      U = horner(sU, 0, terms, dt);
+      u = horner(su, 0, p + 1, dt);
+      v = horner(sv, 0, p + 1, dt);
+      w = horner(sw, 0, p + 1, dt);
+    }
+    eta = last ? stopAt : eta + dt;
+    if (!Number.isFinite(F + f + g + h)) return failedShot();
+    // The attached profile rises monotonically to f' = 1: a trial that clearly overshoots has
+    // s too large, one that turns back well below 1 (f'' < 0) has s too small; the sign is all
+    // a bracket needs.
+    if (g > 1.2) return { kind: 'over', residual: Infinity, slope: variational ? v : NaN, plain: g - 1, slopePlain: v, edge: eta };
+    if (h < 0 && g < 0.8) return { kind: 'under', residual: -Infinity, slope: variational ? v : NaN, plain: g - 1, slopePlain: v, edge: eta };
+    if (F < FMin) FMin = F;
+    if (last) {
+      const plain = g - 1;
+      // Asymptotic condition: with f ≈ ξ far out, f' − 1 obeys the linearised equation
+      // φ'' + ξ φ' − 2β φ = 0, whose decaying solution has φ'/φ = −ξ − a/ξ + a(a+1)/ξ³ + O(ξ⁻⁵),
+      // a = 1 + 2β (our own algebra; the other solution, ξ^{2β}, is what η∞ = ∞ excludes).
+      // Imposing that ratio instead of φ = 0 removes the leading truncation error.
+      let lambda = Infinity;
+      if (f > 3) {
+        const a = 1 + 2 * beta;
+        lambda = f + a / f - (a * (a + 1)) / (f * f * f);
+      }
+      const residual = plain + h / lambda;
+      const slope = variational ? v + w / lambda : NaN;
+      return { kind: 'edge', residual, slope, plain, slopePlain: v, edge: eta, steps: builder };
+    }
+  }
+  return failedShot();
+}
+
+function failedShot(): Shot {
+  return { kind: 'failed', residual: NaN, slope: NaN, plain: NaN, slopePlain: NaN, edge: NaN };
+}
+
+// ------------------------------------------------------------------------------ Newton
 
 /** Starting guess for f''(0): a rough fit, only the Newton iteration sets the value. */
 function initialGuess(beta: number, fw: number): number {
-  const s0 = Math.sqrt(Math.max(0.2205 + 1.3 * beta, 0.0025));
+  // f''(0)² ≈ 0.2205 + 1.1404 β + 0.1584 β² without blowing: our own fit through the Blasius value
+  // (β = 0), Hiemenz's (β = 1) and zero at Hartree's separation (β = −0.19884), within about 3 %
+  // on −0.19 ≤ β ≤ 1.6; then the suction/blowing shift of a thin layer, s ≈ ½(f_w + √(f_w² + 4 s₀²)).
+  const s0 = Math.sqrt(Math.max(0.2205 + 1.1404 * beta + 0.1584 * beta * beta, 1e-8));
   return 0.5 * (fw + Math.sqrt(fw * fw + 4 * s0 * s0));
 }
 
-interface LevelResult {
+/**
+ * Shot precision for an iterate whose relative error is about `error`: enough that the Newton
+ * step from it is limited by error² (Newton's own convergence); full once the iterate is close.
+ * `scale` is s·∂r/∂s (capped at 1), the size of the residual per relative change of s: near
+ * separation, where f''(0) and the residual are small, every precision tightens with it.
+ */
+function precisionFor(error: number, scale: number): number {
+  const full = Math.max(1e-22, EPS_FINAL * scale);
+  if (error <= FINAL_ERROR) return full;
+  return Math.max(full, Math.min(EPS_COARSE, 0.1 * scale * error * error));
+}
+
+/**
+ * Newton's constant C in error_{k+1} ≈ C·error_k², estimated from two successive relative
+ * changes (at least 1; 1 when there is no previous step). It is large for β > 0 on a long
+ * domain, where ∂f'(η∞)/∂s grows like η∞^{2β}: the acceptance and the precision ladder use it.
+ */
+export function newtonCurvature(change: number, previousChange: number): number {
+  return previousChange > 0 ? Math.max(1, change / (previousChange * previousChange)) : 1;
+}
+
+interface RootResult {
   kind: 'root' | 'separation' | 'failed';
+  /** f''(0), with the final correction applied. */
   s: number;
-  shot?: ShotResult;
+  shot?: Shot;
+  trace?: SolutionTrace;
   integrations: number;
 }
 
-/** Newton on s at a fixed η∞, kept inside a sign bracket [lo, hi] and bisecting when it strays. */
-function solveLevel(beta: number, fw: number, etaInf: number, guess: number): LevelResult {
-  let integrations = 0;
-  let lo = 0;
+/** Shots before a bracket that has not closed in on a root asks whether one exists at all. */
+const SHOTS_BEFORE_FLOOR_CHECK = 4;
+
+/**
+ * Newton on s, kept inside a sign bracket [lo, hi] (bisecting when it strays), from `guess`.
+ * A root is accepted when a full-precision shot's own Newton correction δ is below ACCEPT_CHANGE
+ * and C·δ² (the error the correction leaves) below 1e-14.
+ * With β < 0 or blowing the attached branch may not exist: if the residual at the bracket's
+ * floor `lo0` is not negative, the answer is 'separation'.
+ */
+function findRoot(beta: number, fw: number, guess: number, lo0: number, minEdge: number): RootResult {
+  let lo = lo0;
   let hi = Infinity;
-  // The attached branch needs residual(lo) < 0: with s = 0 (or, with blowing, s at the
-  // blow-off floor) a non-negative residual means no attached root exists above it.
-  const needsCheck = beta < 0 || fw < 0;
-  if (needsCheck) {
-    lo = fw < 0 ? BLOWOFF_WALL_SHEAR : 0;
-    const r = shoot(beta, fw, lo, etaInf, false);
-    integrations++;
-    if (!(r.residual < 0)) return { kind: 'separation', s: NaN, integrations };
-  }
-  let s = Math.max(guess, lo * 2);
+  let s = Math.max(guess, 2 * lo);
+  let error = GUESS_ERROR;
+  let slope = NaN;
+  let scale = 1;
+  let previousChange = NaN;
+  let integrations = 0;
+  let floorChecked = !(beta < 0 || fw < 0);
   for (let iter = 0; iter < 200; iter++) {
-    const shot = shoot(beta, fw, s, etaInf, true);
-    integrations++;
-    const r = shot.residual;
-    if (r < 0) lo = Math.max(lo, s);
-    else if (r > 0) hi = Math.min(hi, s);
-    else return { kind: 'root', s, shot, integrations };
-    let next: number;
-    const newton = Number.isFinite(r) && shot.slope > 0 ? s - r / shot.slope : NaN;
-    if (Number.isFinite(newton) && newton > lo && newton < hi) next = newton;
-    else if (hi === Infinity) next = 2 * s + 0.1;
-    else if (lo > 0 && hi / lo > 1e3) next = Math.sqrt(lo * hi); // geometric bisection over decades
-    else next = 0.5 * (lo + hi);
-    if (Math.abs(next - s) <= 1e-13 * s || (Number.isFinite(r) && Math.abs(r) < 1e-15)) {
-      if (!Number.isFinite(r)) break;
-      return { kind: 'root', s, shot, integrations };
+    if (!floorChecked && iter >= SHOTS_BEFORE_FLOOR_CHECK) {
+      floorChecked = true;
+      integrations++;
+      const floor = shoot(beta, fw, lo0, precisionFor(0, scale), false, false, minEdge);
+      if (floor.kind === 'over' || (floor.kind === 'edge' && floor.residual >= 0)) return { kind: 'separation', s: NaN, integrations };
     }
-    if (hi < Infinity && hi - lo <= 1e-14 * hi && Number.isFinite(r)) return { kind: 'root', s, shot, integrations };
-    s = next;
+    const final = error <= FINAL_ERROR;
+    const eps = precisionFor(error, scale);
+    const shot = shoot(beta, fw, s, eps, true, final, minEdge);
+    integrations++;
+    if (shot.kind === 'failed') return { kind: 'failed', s, integrations };
+    const r = shot.residual;
+    // Only a residual well above the shot's own error may move the bracket.
+    if (!Number.isFinite(r) || Math.abs(r) > 10 * eps) {
+      if (r < 0) lo = Math.max(lo, s);
+      else if (r > 0) hi = Math.min(hi, s);
+    }
+    let newton = NaN;
+    if (shot.kind === 'edge') {
+      if (shot.slope > 0) {
+        slope = shot.slope;
+        scale = Math.min(1, s * slope);
+      }
+      if (slope > 0) newton = s - r / slope;
+    } else if (shot.slope > 0) {
+      // A trial that left the layer early: Newton on f' = 1 where it left, a shorter domain
+      // on which the problem is better conditioned (the exit moves out as s closes in).
+      newton = s - shot.plain / shot.slope;
+    }
+    if (Number.isFinite(newton) && newton > lo && newton < hi) {
+      const change = Math.abs(newton - s) / s;
+      const curvature = newtonCurvature(change, previousChange);
+      if (shot.kind === 'edge' && final && change <= ACCEPT_CHANGE && curvature * change * change <= 1e-14 && shot.steps) {
+        const delta = newton - s;
+        const trace = shot.steps.build(shot.edge, [delta]);
+        return { kind: 'root', s: newton, shot: { ...shot, residual: 0, plain: shot.plain + delta * shot.slopePlain }, trace, integrations };
+      }
+      // The next iterate is off by about C·change² (or by what this shot's precision allows);
+      // a step from a shorter domain only by about its own size.
+      error = shot.kind === 'edge' ? Math.max(curvature * change * change, 10 * eps, 1e-16) : change;
+      previousChange = shot.kind === 'edge' ? change : NaN;
+      s = newton;
+      continue;
+    }
+    error = GUESS_ERROR;
+    previousChange = NaN;
+    if (hi === Infinity) s = 2 * s + 0.1;
+    else if (lo > 0 && hi / lo > 1e3) s = Math.sqrt(lo * hi); // geometric bisection over decades
+    else s = 0.5 * (lo + hi);
+    if (hi < Infinity && hi - lo <= 1e-14 * hi) return { kind: 'failed', s, integrations };
   }
   return { kind: 'failed', s, integrations };
 }
 
 function firstCrossing(trace: SolutionTrace, k: number, level: number, from = 0): number {
-  // First η where derivative k of F rises through `level` (nodes, then bisection on the interpolant).
+  // First η where derivative k of F rises through `level`: nodes, then Newton on the step's
+  // polynomial safeguarded by bisection.
   const d = trace.d[k];
   let i = from;
   while (i < trace.length && d[i] < level) i++;
@@ -183,16 +382,22 @@ function firstCrossing(trace: SolutionTrace, k: number, level: number, from = 0)
   if (i >= trace.length) return NaN;
   let a = trace.eta[i - 1];
   let b = trace.eta[i];
-  for (let it = 0; it < 100 && b - a > 1e-15 * b; it++) {
-    const c = 0.5 * (a + b);
-    if (trace.derivative(k, c) < level) a = c;
-    else b = c;
+  let x = 0.5 * (a + b);
+  for (let it = 0; it < 100; it++) {
+    const r = trace.derivative(k, x) - level;
+    if (r < 0) a = x;
+    else b = x;
+    const slope = trace.derivative(k + 1, x);
+    let next = x - r / slope;
+    if (!(next > a && next < b)) next = 0.5 * (a + b);
+    if (Math.abs(next - x) <= 1e-15 * Math.max(1, x) || b - a <= 1e-15 * b) return next;
+    x = next;
   }
-  return 0.5 * (a + b);
+  return x;
 }
 
 export interface SolveOptions {
-  /** First outer edge tried (the η∞ loop then grows it); for checking η∞ independence. */
+  /** Smallest outer edge (the solver's own edge is used when farther); for checking η∞ independence. */
   etaInfStart?: number;
 }
 
@@ -218,50 +423,45 @@ export function solveFalknerSkanUncached(m: number, wallBlowing = 0, options: So
     thermalMemo: new Map(),
     integrations: 0,
   };
-
-  // Start beyond the layer: thicker near separation, pushed out by blowing.
-  let etaInf = Math.min(options.etaInfStart ?? (beta < 0 ? 12 : 10) + 4 * Math.max(0, -fw), ETA_INF_MAX);
-  let guess = initialGuess(beta, fw);
-  let previous = NaN;
-  while (etaInf <= ETA_INF_MAX) {
-    const level = solveLevel(beta, fw, etaInf, guess);
-    base.integrations += level.integrations;
-    if (level.kind === 'separation') return { ...base, status: 'separation', etaInf };
-    if (level.kind === 'failed' || !level.shot?.trace) return { ...base, etaInf };
-    const s = level.s;
-    // f''(0) falls monotonically as η∞ grows when blowing is near blow-off: once it is below
-    // the floor the layer has left the wall.
-    if (s < BLOWOFF_WALL_SHEAR) return { ...base, status: 'separation', etaInf };
-    const change = Math.abs(s - previous) / s;
-    if (change <= ETA_CHANGE_TOL) {
-      const trace = level.shot.trace;
-      // The attached branch has 0 ≤ f' ≤ 1 and f'' ≥ 0 throughout; anything else is another root.
-      if (!isAttachedProfile(trace)) return { ...base, etaInf };
-      const { FMin, etaFMin } = minimumOfF(trace, fw);
-      return {
-        ...base,
-        status: 'attached',
-        wallShear: s,
-        eta99: firstCrossing(trace, 2, 0.99),
-        etaInf,
-        etaInfChange: change,
-        trace,
-        FMin,
-        etaFMin,
-      };
-    }
-    previous = s;
-    guess = s;
-    etaInf += Math.max(4, 0.25 * etaInf);
+  const minEdge = Math.min(options.etaInfStart ?? 0, ETA_INF_MAX);
+  // The attached branch needs residual(lo) < 0: with s = 0 (or, with blowing, s at the
+  // blow-off floor) a non-negative residual means no attached root exists above it.
+  const lo = fw < 0 ? BLOWOFF_WALL_SHEAR : 0;
+  const root = findRoot(beta, fw, initialGuess(beta, fw), lo, minEdge);
+  base.integrations = root.integrations;
+  if (root.kind === 'separation') return { ...base, status: 'separation' };
+  const trace = root.trace;
+  if (root.kind === 'root' && trace && isAttachedProfile(trace)) {
+    const shot = root.shot!;
+    const s = root.s;
+    // Blowing near blow-off: f''(0) falls below the floor as the layer leaves the wall.
+    if (s < BLOWOFF_WALL_SHEAR) return { ...base, status: 'separation' };
+    const { FMin, etaFMin } = minimumOfF(trace, fw);
+    return {
+      ...base,
+      status: 'attached',
+      wallShear: s,
+      eta99: firstCrossing(trace, 2, 0.99),
+      etaInf: shot.edge,
+      etaInfChange: Math.abs(shot.plain / shot.slope / s),
+      trace,
+      FMin,
+      etaFMin,
+    };
   }
-  return { ...base, etaInf: ETA_INF_MAX };
+  return base;
 }
 
 function isAttachedProfile(trace: SolutionTrace): boolean {
-  // Spurious roots break these by O(1); the margins only absorb the residual left at η∞, where
-  // for β > 0 the sensitivity ∂f'(η∞)/∂s grows like η∞^{2β}.
-  const g = trace.d[2], h = trace.d[3];
-  for (let i = 0; i < trace.length; i++) if (g[i] < -1e-6 || g[i] > 1 + 1e-6 || h[i] < -1e-6) return false;
+  // The attached branch has 0 ≤ f' ≤ 1 and f'' ≥ 0 throughout: spurious roots break these by
+  // O(1) (checked at the nodes and between them); the margins only absorb the residual left at
+  // η∞, where for β > 0 the sensitivity ∂f'(η∞)/∂s grows like η∞^{2β}.
+  for (let i = 0; i + 1 < trace.length; i++) {
+    for (const x of [trace.eta[i], 0.5 * (trace.eta[i] + trace.eta[i + 1])]) {
+      const g = trace.derivative(2, x);
+      if (g < -1e-6 || g > 1 + 1e-6 || trace.derivative(3, x) < -1e-6) return false;
+    }
+  }
   return true;
 }
 
@@ -280,8 +480,7 @@ registerCache(() => cache.clear());
  * (v_w/U)·Re_x^½, cached: it depends on nothing else, so a sweep over Pr or Re reuses it.
  * Status `separation` when no attached solution exists: m below the separation value
  * (β ≈ −0.1988 without blowing), or blowing strong enough to lift the layer off the wall
- * (f''(0) → 0; taken as f''(0) < 1e-9 in Hartree's scaling, where the solution stops
- * converging as η∞ grows).
+ * (f''(0) → 0; taken as f''(0) < 1e-9 in Hartree's scaling).
  */
 export function solveFalknerSkan(m: number, wallBlowing = 0): FalknerSkanSolution {
   const key = `${m}|${wallBlowing}`;

@@ -49,10 +49,9 @@ export function expIntegral(trace: SolutionTrace, P: number, a: number, Fref: nu
     points.push(etaMin);
     for (let w = sigma / 4; w <= 64 * sigma; w *= 4) if (etaMin + w < end) points.push(etaMin + w);
   }
-  // Grade towards the start, where the integrand is largest, so no scale is stepped over.
-  const length = end - start;
-  for (let k = 12; k >= 1; k--) {
-    const x = start + length * Math.pow(0.25, k);
+  // Grade from the start, where the integrand is largest, in steps of four from a quarter of its
+  // first e-folding length, so that no scale is stepped over.
+  for (let x = start + 0.25 * eFoldLength(trace, P, start); x < end; x = start + 4 * (x - start)) {
     if (x > points[points.length - 1]) points.push(x);
   }
   if (end > points[points.length - 1]) points.push(end);
@@ -74,10 +73,23 @@ function outerIntegral(P: number, fa: number, g: number): ExpIntegral {
   const need = NEGLIGIBLE_EXPONENT / P;
   const tauEnd = g > 0 ? (2 * need) / (fa + Math.sqrt(fa * fa + 2 * g * need)) : need / fa;
   if (!(tauEnd > 0) || !Number.isFinite(tauEnd)) return { value: NaN, converged: false };
+  // Breakpoints from a quarter of the first e-folding length, in steps of four.
   const points = [0];
-  for (let k = 12; k >= 0; k--) points.push(tauEnd * Math.pow(0.25, k));
+  for (let t = 0.25 * Math.min(1 / (P * Math.abs(fa)), Math.sqrt(2 / (P * Math.abs(g)))); t < tauEnd; t *= 4) points.push(t);
+  points.push(tauEnd);
   const q = adaptiveQuadrature((t) => Math.exp(-P * t * (fa + 0.5 * g * t)), points, REL_TOL);
   return { value: q.value, converged: q.converged };
+}
+
+/**
+ * Length over which P·(F − F(start)) first grows by one, from the local Taylor terms of F at
+ * `start` (the smallest of the lengths at which each term alone reaches one).
+ */
+function eFoldLength(trace: SolutionTrace, P: number, start: number): number {
+  const f = Math.abs(trace.derivative(1, start));
+  const g = Math.abs(trace.derivative(2, start));
+  const h = Math.abs(trace.derivative(3, start));
+  return Math.min(1 / (P * f), Math.sqrt(2 / (P * g)), Math.cbrt(6 / (P * h)));
 }
 
 /** Smallest η ≥ start (to node precision) beyond which P·(F − Fref) exceeds the negligible exponent. */
