@@ -9,7 +9,7 @@
 // minimum), with the asymptotic far-field condition imposed there instead of f'(η∞) = 1.
 import { SolutionTrace, TraceBuilder } from './trace.js';
 import { LruCache, registerCache, solveCounts } from './cache.js';
-import { horner, orderFor, radiusStep, SERIES_LENGTH } from './taylor.js';
+import { horner, orderFor, radiusStep, SERIES_LENGTH, STABILITY } from './taylor.js';
 
 export type MomentumStatus = 'attached' | 'separation' | 'not-converged';
 
@@ -52,18 +52,26 @@ const EPS_FINAL = 1e-13;
 /** The cheapest shots: far from the root their error does not matter. */
 const EPS_COARSE = 1e-5;
 /**
- * A full-precision shot is taken once the iterate is this close, and accepted when its Newton
- * correction δ is below ACCEPT_CHANGE: the solution is then moved by δ along the variational
- * solution, which leaves an error of order δ² (1e-14).
+ * A full-precision shot is taken once the iterate is this close, and accepted when its
+ * correction δ is below ACCEPT_CHANGE: the solution is then moved by δ along the first and
+ * second variations, which leaves an error of order δ³ (1e-14).
  */
-const FINAL_ERROR = 3e-8;
-const ACCEPT_CHANGE = 1e-7;
+const FINAL_ERROR = 2e-5;
+const ACCEPT_CHANGE = 2e-5;
 /**
  * The edge: F − F_min = 29. Beyond it f'' ≈ s·e^{−(F − F_min)} (exactly so on the flat plate) is
  * below 3e-13·s; the asymptotic condition takes up that remainder to a relative O(1/f²).
  */
 const EDGE_EXPONENT = 29;
 const ETA_INF_MAX = 120;
+/**
+ * Order of the variational series. The steps are sized for the solution at order p, so order q
+ * leaves a relative error of about ε^{(q+1)/p} (1e-8 at ε = 1e-13, p = 16): ample for Newton's
+ * slope and for the final correction δ·∂y/∂s with δ ≤ ACCEPT_CHANGE, at a fraction of the work.
+ */
+export const VARIATIONAL_ORDER = 9;
+/** Order of the second variation (final shots): it enters the result multiplied by δ²/2 ≤ 2e-10. */
+const SECOND_VARIATION_ORDER = 6;
 const MAX_STEPS = 5000;
 /** Relative error of `initialGuess` assumed before the first shot. */
 const GUESS_ERROR = 0.05;
@@ -94,6 +102,8 @@ interface Shot {
   residual: number;
   /** ∂residual/∂s from the variational equation (NaN when not carried); at the exit for over/under. */
   slope: number;
+  /** ∂²residual/∂s² from the second variation (final shots; NaN otherwise). */
+  curvature: number;
   /** f' − 1 at the edge (for the size of the far-field correction) or where the trial left. */
   plain: number;
   /** ∂f'/∂s at the edge. */
@@ -113,13 +123,19 @@ const sh = new Float64Array(SERIES_LENGTH);
 const su = new Float64Array(SERIES_LENGTH);
 const sv = new Float64Array(SERIES_LENGTH);
 const sw = new Float64Array(SERIES_LENGTH);
-const SENSITIVITIES = [sU, su, sv, sw];
+// Second variations U2 = ∂²F/∂s², u2, v2, w2 (final shots only).
+const sU2 = new Float64Array(SERIES_LENGTH);
+const su2 = new Float64Array(SERIES_LENGTH);
+const sv2 = new Float64Array(SERIES_LENGTH);
+const sw2 = new Float64Array(SERIES_LENGTH);
+const SENSITIVITIES = [sU, sU2];
 
 /**
- * Taylor coefficients up to order p (F to p + 1) of the Falkner–Skan system, and of its
- * variational equation u''' = −(u f'' + f u'') + 2β f' u' when `variational`.
+ * Taylor coefficients up to order p (F to p + 3) of the Falkner–Skan system, to order q of its
+ * variational equation u''' = −(u f'' + f u'') + 2β f' u' (none when q = 0), and to order q2 ≤ q
+ * of the second variation u2''' = −(u2 f'' + 2 u u'' + f u2'') + 2β (u'² + f' u2') (none when 0).
  */
-function series(beta: number, p: number, variational: boolean): void {
+function series(beta: number, p: number, q: number, q2: number): void {
   for (let k = 0; k < p; k++) {
     // (f'²)_k by symmetry: twice the products below the middle, plus the middle square.
     let gg = 0;
@@ -134,7 +150,7 @@ function series(beta: number, p: number, variational: boolean): void {
     sf[k + 1] = sg[k] * inv;
     sg[k + 1] = sh[k] * inv;
     sh[k + 1] = (beta * (gg - (k === 0 ? 1 : 0)) - fh) * inv;
-    if (variational) {
+    if (k < q) {
       let cw = 0;
       for (let j = 0; j <= k; j++) cw += 2 * beta * sg[j] * sv[k - j] - su[j] * sh[k - j] - sf[j] * sw[k - j];
       sU[k + 1] = su[k] * inv;
@@ -142,18 +158,40 @@ function series(beta: number, p: number, variational: boolean): void {
       sv[k + 1] = sw[k] * inv;
       sw[k + 1] = cw * inv;
     }
+    if (k < q2) {
+      let cw2 = 0;
+      for (let j = 0; j <= k; j++) {
+        const m = k - j;
+        cw2 += 2 * beta * (sv[j] * sv[m] + sg[j] * sv2[m]) - su2[j] * sh[m] - 2 * su[j] * sw[m] - sf[j] * sw2[m];
+      }
+      sU2[k + 1] = su2[k] * inv;
+      su2[k + 1] = sv2[k] * inv;
+      sv2[k + 1] = sw2[k] * inv;
+      sw2[k + 1] = cw2 * inv;
+    }
   }
-  sF[p + 1] = sf[p] / (p + 1);
-  if (variational) {
-    sU[p + 1] = su[p] / (p + 1);
-    su[p + 1] = sv[p] / (p + 1);
-    sv[p + 1] = sw[p] / (p + 1);
-    sw[p + 1] = 0;
+  extendSeries(sF, sf, sg, sh, p);
+  if (q > 0) {
+    extendSeries(sU, su, sv, sw, q);
+    sU.fill(0, q + 4, p + 4);
   }
-  // The trace keeps p + 2 coefficients of every series: the top one is exact for f and f'.
-  sf[p + 1] = sg[p] / (p + 1);
-  sg[p + 1] = sh[p] / (p + 1);
-  sh[p + 1] = 0;
+  if (q2 > 0) {
+    extendSeries(sU2, su2, sv2, sw2, q2);
+    sU2.fill(0, q2 + 4, p + 4);
+  }
+}
+
+/**
+ * Completes the series of F, f, f' beyond order p exactly from the order-p series of f''
+ * (each is the integral of the next): F to p + 3, f to p + 2, f' to p + 1.
+ */
+export function extendSeries(F: Float64Array, f: Float64Array, g: Float64Array, h: Float64Array, p: number): void {
+  g[p + 1] = h[p] / (p + 1);
+  f[p + 1] = g[p] / (p + 1);
+  f[p + 2] = g[p + 1] / (p + 2);
+  F[p + 1] = f[p] / (p + 1);
+  F[p + 2] = f[p + 1] / (p + 2);
+  F[p + 3] = f[p + 2] / (p + 3);
 }
 
 /** Step length for the series just computed, controlled by f, f' and f'' (taylor.ts `radiusStep`). */
@@ -186,12 +224,18 @@ function edgeInStep(target: number, terms: number, h: number): number {
  */
 function shoot(beta: number, fw: number, s: number, eps: number, variational: boolean, keepTrace: boolean, minEdge: number): Shot {
   const p = orderFor(eps);
+  const q = variational ? Math.min(p, VARIATIONAL_ORDER) : 0;
+  // The final shot also carries the second variation: its correction is then exact to O(δ³).
+  const q2 = keepTrace && variational ? Math.min(q, SECOND_VARIATION_ORDER) : 0;
   const epsRoot = Math.pow(eps, 1 / p);
-  const terms = p + 2;
-  const builder = keepTrace ? new TraceBuilder(terms, variational ? 1 : 0) : undefined;
+  const terms = p + 4;
+  // A coarse shot needs a shorter domain only: what lies beyond is far below its own error.
+  const edgeExponent = Math.min(EDGE_EXPONENT, 4 - Math.log(eps));
+  const builder = keepTrace ? new TraceBuilder(terms, q2 > 0 ? 2 : q > 0 ? 1 : 0) : undefined;
   let eta = 0;
   let F = 0, f = fw, g = 0, h = s;
   let U = 0, u = 0, v = 0, w = 1;
+  let U2 = 0, u2 = 0, v2 = 0, w2 = 0;
   let FMin = 0;
   let stopAt = Infinity;
   for (let step = 0; step < MAX_STEPS; step++) {
@@ -205,33 +249,48 @@ function shoot(beta: number, fw: number, s: number, eps: number, variational: bo
       sv[0] = v;
       sw[0] = w;
     }
-    series(beta, p, variational);
+    if (q2 > 0) {
+      sU2[0] = U2;
+      su2[0] = u2;
+      sv2[0] = v2;
+      sw2[0] = w2;
+    }
+    series(beta, p, q, q2);
     let dt = stepFor(p, epsRoot);
+    // The variations decay like e^{−∫f} far out, faster than the solution's steps resolve:
+    // keep f·h inside the stability interval of their (lower) order.
+    if (q > 0) dt = Math.min(dt, (0.9 * STABILITY[q2 > 0 ? q2 : q]) / (Math.abs(f) + 0.5));
     if (!(dt > 1e-9)) return failedShot();
     if (stopAt === Infinity && eta + dt > ETA_INF_MAX) return failedShot();
-    // The edge: F − F_min reaches EDGE_EXPONENT within this step.
-    const target = FMin + EDGE_EXPONENT;
+    // The edge: F − F_min reaches the edge exponent within this step.
+    const target = FMin + edgeExponent;
     if (stopAt === Infinity && horner(sF, 0, terms, dt) >= target) stopAt = Math.max(eta + edgeInStep(target, terms, dt), minEdge);
     const last = eta + dt >= stopAt;
     if (last) dt = stopAt - eta;
-    builder?.push(eta, sF, sf, sg, sh, SENSITIVITIES);
+    builder?.push(eta, sF, SENSITIVITIES);
     F = horner(sF, 0, terms, dt);
-    f = horner(sf, 0, p + 1, dt);
-    g = horner(sg, 0, p + 1, dt);
+    f = horner(sf, 0, p + 3, dt);
+    g = horner(sg, 0, p + 2, dt);
     h = horner(sh, 0, p + 1, dt);
     if (variational) {
-      U = horner(sU, 0, terms, dt);
-      u = horner(su, 0, p + 1, dt);
-      v = horner(sv, 0, p + 1, dt);
-      w = horner(sw, 0, p + 1, dt);
+      U = horner(sU, 0, q + 4, dt);
+      u = horner(su, 0, q + 3, dt);
+      v = horner(sv, 0, q + 2, dt);
+      w = horner(sw, 0, q + 1, dt);
+    }
+    if (q2 > 0) {
+      U2 = horner(sU2, 0, q2 + 4, dt);
+      u2 = horner(su2, 0, q2 + 3, dt);
+      v2 = horner(sv2, 0, q2 + 2, dt);
+      w2 = horner(sw2, 0, q2 + 1, dt);
     }
     eta = last ? stopAt : eta + dt;
     if (!Number.isFinite(F + f + g + h)) return failedShot();
     // The attached profile rises monotonically to f' = 1: a trial that clearly overshoots has
     // s too large, one that turns back well below 1 (f'' < 0) has s too small; the sign is all
     // a bracket needs.
-    if (g > 1.2) return { kind: 'over', residual: Infinity, slope: variational ? v : NaN, plain: g - 1, slopePlain: v, edge: eta };
-    if (h < 0 && g < 0.8) return { kind: 'under', residual: -Infinity, slope: variational ? v : NaN, plain: g - 1, slopePlain: v, edge: eta };
+    if (g > 1.2) return { kind: 'over', residual: Infinity, slope: variational ? v : NaN, curvature: NaN, plain: g - 1, slopePlain: v, edge: eta };
+    if (h < 0 && g < 0.8) return { kind: 'under', residual: -Infinity, slope: variational ? v : NaN, curvature: NaN, plain: g - 1, slopePlain: v, edge: eta };
     if (F < FMin) FMin = F;
     if (last) {
       const plain = g - 1;
@@ -246,14 +305,15 @@ function shoot(beta: number, fw: number, s: number, eps: number, variational: bo
       }
       const residual = plain + h / lambda;
       const slope = variational ? v + w / lambda : NaN;
-      return { kind: 'edge', residual, slope, plain, slopePlain: v, edge: eta, steps: builder };
+      const curvature = q2 > 0 ? v2 + w2 / lambda : NaN;
+      return { kind: 'edge', residual, slope, curvature, plain, slopePlain: v, edge: eta, steps: builder };
     }
   }
   return failedShot();
 }
 
 function failedShot(): Shot {
-  return { kind: 'failed', residual: NaN, slope: NaN, plain: NaN, slopePlain: NaN, edge: NaN };
+  return { kind: 'failed', residual: NaN, slope: NaN, curvature: NaN, plain: NaN, slopePlain: NaN, edge: NaN };
 }
 
 // ------------------------------------------------------------------------------ Newton
@@ -274,7 +334,8 @@ function initialGuess(beta: number, fw: number): number {
  * separation, where f''(0) and the residual are small, every precision tightens with it.
  */
 function precisionFor(error: number, scale: number): number {
-  const full = Math.max(1e-22, EPS_FINAL * scale);
+  // (Not below 1e-16: the residual is a difference of order-one numbers.)
+  const full = Math.max(1e-16, EPS_FINAL * scale);
   if (error <= FINAL_ERROR) return full;
   return Math.max(full, Math.min(EPS_COARSE, 0.1 * scale * error * error));
 }
@@ -302,8 +363,8 @@ const SHOTS_BEFORE_FLOOR_CHECK = 4;
 
 /**
  * Newton on s, kept inside a sign bracket [lo, hi] (bisecting when it strays), from `guess`.
- * A root is accepted when a full-precision shot's own Newton correction δ is below ACCEPT_CHANGE
- * and C·δ² (the error the correction leaves) below 1e-14.
+ * A root is accepted when a full-precision shot's own correction δ is below ACCEPT_CHANGE and
+ * C²·δ³ (the error the correction leaves) below 1e-14.
  * With β < 0 or blowing the attached branch may not exist: if the residual at the bracket's
  * floor `lo0` is not negative, the answer is 'separation'.
  */
@@ -350,14 +411,18 @@ function findRoot(beta: number, fw: number, guess: number, lo0: number, minEdge:
     if (Number.isFinite(newton) && newton > lo && newton < hi) {
       const change = Math.abs(newton - s) / s;
       const curvature = newtonCurvature(change, previousChange);
-      if (shot.kind === 'edge' && final && change <= ACCEPT_CHANGE && curvature * change * change <= 1e-14 && shot.steps) {
-        const delta = newton - s;
-        const trace = shot.steps.build(shot.edge, [delta]);
-        return { kind: 'root', s: newton, shot: { ...shot, residual: 0, plain: shot.plain + delta * shot.slopePlain }, trace, integrations };
+      if (shot.kind === 'edge' && final && change <= ACCEPT_CHANGE && curvature * curvature * change ** 3 <= 1e-14 && shot.steps) {
+        // The root to second order, r + r'δ + r''δ²/2 = 0, and the solution moved there along
+        // the first and second variations: what is left is of order δ³.
+        const delta0 = newton - s;
+        const delta = delta0 - (0.5 * shot.curvature * delta0 * delta0) / slope;
+        const trace = shot.steps.build(shot.edge, [delta, 0.5 * delta * delta]);
+        return { kind: 'root', s: s + delta, shot: { ...shot, residual: 0, plain: shot.plain + delta * shot.slopePlain }, trace, integrations };
       }
-      // The next iterate is off by about C·change² (or by what this shot's precision allows);
+      // The next iterate is off by about C·change², or by what this shot's precision allows
+      // (its residual error ε over s·∂r/∂s);
       // a step from a shorter domain only by about its own size.
-      error = shot.kind === 'edge' ? Math.max(curvature * change * change, 10 * eps, 1e-16) : change;
+      error = shot.kind === 'edge' ? Math.max(curvature * change * change, eps / scale, 1e-16) : change;
       previousChange = shot.kind === 'edge' ? change : NaN;
       s = newton;
       continue;
@@ -456,11 +521,10 @@ function isAttachedProfile(trace: SolutionTrace): boolean {
   // The attached branch has 0 ≤ f' ≤ 1 and f'' ≥ 0 throughout: spurious roots break these by
   // O(1) (checked at the nodes and between them); the margins only absorb the residual left at
   // η∞, where for β > 0 the sensitivity ∂f'(η∞)/∂s grows like η∞^{2β}.
-  for (let i = 0; i + 1 < trace.length; i++) {
-    for (const x of [trace.eta[i], 0.5 * (trace.eta[i] + trace.eta[i + 1])]) {
-      const g = trace.derivative(2, x);
-      if (g < -1e-6 || g > 1 + 1e-6 || trace.derivative(3, x) < -1e-6) return false;
-    }
+  for (let i = 0; i + 1 < 2 * trace.length - 1; i++) {
+    const x = i % 2 === 0 ? trace.eta[i / 2] : 0.5 * (trace.eta[(i - 1) / 2] + trace.eta[(i + 1) / 2]);
+    const g = trace.derivative(2, x);
+    if (g < -1e-6 || g > 1 + 1e-6 || trace.derivative(3, x) < -1e-6) return false;
   }
   return true;
 }

@@ -12,7 +12,7 @@
 import { SolutionTrace, TraceBuilder } from './trace.js';
 import { LruCache, registerCache, solveCounts } from './cache.js';
 import { horner, orderFor, radiusStep, SERIES_LENGTH } from './taylor.js';
-import { newtonCurvature } from './falknerSkan.js';
+import { extendSeries, newtonCurvature, VARIATIONAL_ORDER } from './falknerSkan.js';
 
 export interface FreeConvectionSolution {
   Pr: number;
@@ -63,34 +63,17 @@ const bF = buffer(), bf = buffer(), bg = buffer(), bh = buffer(), bJ = buffer(),
 const Y = [sF, sf, sg, sh, sJ, sE];
 const D1 = [aF, af, ag, ah, aJ, aE];
 const D2 = [bF, bf, bg, bh, bJ, bE];
-const SENSITIVITIES = [aF, af, ag, ah, bF, bf, bg, bh];
+const SENSITIVITIES = [aF, bF];
 
 /**
- * Taylor coefficients up to order p of the system and both variational systems (k3 = 3 Pr).
- * `thermal` false once the thermal layer is closed (E ≡ 0, J constant): its terms are skipped.
+ * Taylor coefficients up to order p of the system (k3 = 3 Pr). `thermal` false once the thermal
+ * layer is closed (E ≡ 0, J constant): its terms are skipped.
  */
 function series(k3: number, s2: number, p: number, thermal: boolean): void {
   for (let k = 0; k < p; k++) {
-    let fh = 0, fE = 0, ah_ = 0, bh_ = 0, agg = 0, bgg = 0, aE_ = 0, bE_ = 0;
-    for (let j = 0; j <= k; j++) {
-      const m = k - j;
-      const fj = sf[j], gj = sg[j], hm = sh[m];
-      fh += fj * hm;
-      ah_ += af[j] * hm + fj * ah[m];
-      bh_ += bf[j] * hm + fj * bh[m];
-      agg += gj * ag[m];
-      bgg += gj * bg[m];
-    }
-    if (thermal) {
-      for (let j = 0; j <= k; j++) {
-        const m = k - j;
-        const fj = sf[j], Em = sE[m];
-        fE += fj * Em;
-        aE_ += af[j] * Em + fj * aE[m];
-        bE_ += bf[j] * Em + fj * bE[m];
-      }
-    }
-    let gg = 0;
+    let fh = 0, fE = 0, gg = 0;
+    for (let j = 0; j <= k; j++) fh += sf[j] * sh[k - j];
+    if (thermal) for (let j = 0; j <= k; j++) fE += sf[j] * sE[k - j];
     const half = k >> 1;
     for (let j = 0; j < half + (k & 1); j++) gg += sg[j] * sg[k - j];
     gg *= 2;
@@ -100,6 +83,36 @@ function series(k3: number, s2: number, p: number, thermal: boolean): void {
     sf[k + 1] = sg[k] * inv;
     sg[k + 1] = sh[k] * inv;
     sh[k + 1] = (-3 * fh + 2 * gg - ((k === 0 ? 1 : 0) + s2 * sJ[k])) * inv;
+    sJ[k + 1] = sE[k] * inv;
+    sE[k + 1] = -k3 * fE * inv;
+  }
+  extendSeries(sF, sf, sg, sh, p);
+}
+
+/**
+ * Taylor coefficients to order q of both variational systems, from the solution's (computed
+ * first, to order p ≥ q); the F series are zeroed above q so the trace reads order p.
+ */
+function variationalSeries(k3: number, s2: number, p: number, q: number, thermal: boolean): void {
+  for (let k = 0; k < q; k++) {
+    let ah_ = 0, bh_ = 0, agg = 0, bgg = 0, aE_ = 0, bE_ = 0;
+    for (let j = 0; j <= k; j++) {
+      const m = k - j;
+      const fj = sf[j], gj = sg[j], hm = sh[m];
+      ah_ += af[j] * hm + fj * ah[m];
+      bh_ += bf[j] * hm + fj * bh[m];
+      agg += gj * ag[m];
+      bgg += gj * bg[m];
+    }
+    if (thermal) {
+      for (let j = 0; j <= k; j++) {
+        const m = k - j;
+        const fj = sf[j], Em = sE[m];
+        aE_ += af[j] * Em + fj * aE[m];
+        bE_ += bf[j] * Em + fj * bE[m];
+      }
+    }
+    const inv = 1 / (k + 1);
     aF[k + 1] = af[k] * inv;
     af[k + 1] = ag[k] * inv;
     ag[k + 1] = ah[k] * inv;
@@ -108,23 +121,16 @@ function series(k3: number, s2: number, p: number, thermal: boolean): void {
     bf[k + 1] = bg[k] * inv;
     bg[k + 1] = bh[k] * inv;
     bh[k + 1] = (-3 * bh_ + 4 * bgg - s2 * bJ[k] - sJ[k]) * inv;
-    sJ[k + 1] = sE[k] * inv;
     aJ[k + 1] = aE[k] * inv;
     bJ[k + 1] = bE[k] * inv;
-    sE[k + 1] = -k3 * fE * inv;
     aE[k + 1] = -k3 * aE_ * inv;
     bE[k + 1] = -k3 * bE_ * inv;
   }
-  // The trace keeps p + 2 coefficients of F, f, f', f'' and their sensitivities.
-  const top = 1 / (p + 1);
-  for (const [F, f, g, h] of GROUPS) {
-    F[p + 1] = f[p] * top;
-    f[p + 1] = g[p] * top;
-    g[p + 1] = h[p] * top;
-    h[p + 1] = 0;
-  }
+  extendSeries(aF, af, ag, ah, q);
+  extendSeries(bF, bf, bg, bh, q);
+  aF.fill(0, q + 4, p + 4);
+  bF.fill(0, q + 4, p + 4);
 }
-const GROUPS = [Y, D1, D2];
 
 /** Step length for the series just computed: f, f', f'', J and E control it. */
 function stepFor(p: number, epsRoot: number): number {
@@ -251,8 +257,10 @@ function shoot(Pr: number, s1: number, s2: number, eps: number, tail: number, ke
   const k3 = 3 * Pr;
   const p = orderFor(eps);
   const epsRoot = Math.pow(eps, 1 / p);
-  const terms = p + 2;
-  const builder = keepTrace ? new TraceBuilder(terms, 2) : undefined;
+  // Coefficients per variable: F to order p + 3, f to p + 2, f' to p + 1 (extendSeries), the rest to p.
+  const counts = [p + 4, p + 3, p + 2, p + 1, p + 1, p + 1];
+  const countsVariational = [0, 0, 0, 0, 0, 0];
+  const builder = keepTrace ? new TraceBuilder(p + 4, 2) : undefined;
   V.set([0, 0, 0, s1, 0, 1]);
   W1.set([0, 0, 0, 1, 0, 0]);
   W2.fill(0);
@@ -273,7 +281,7 @@ function shoot(Pr: number, s1: number, s2: number, eps: number, tail: number, ke
     // polynomial), where its Newton step is still informative.
     if (gMax > 0) {
       for (let j = 1; j <= 8; j++) {
-        if (horner(sg, 0, terms, (dt * j) / 8) < -REVERSE_FLOW * gMax) {
+        if (horner(sg, 0, p + 2, (dt * j) / 8) < -REVERSE_FLOW * gMax) {
           dt = (dt * j) / 8;
           break;
         }
@@ -282,11 +290,18 @@ function shoot(Pr: number, s1: number, s2: number, eps: number, tail: number, ke
     if (!(dt > 1e-12)) return FAILED;
     const last = eta + dt >= stopAt;
     if (last) dt = stopAt - eta;
-    builder?.push(eta, sF, sf, sg, sh, SENSITIVITIES);
+    // The variational series at a lower order, unless a decay much faster than the step (the
+    // velocity's e^{−3fη} at low Pr, e^{−3 Pr F} in a thin thermal layer) makes the problem stiff
+    // there: a truncated series is then only stable at the full order.
+    const stiffness = (3 * V[1] + (thermalDone ? 0 : k3 * V[1])) * dt;
+    const q = stiffness > 2 ? p : Math.min(p, VARIATIONAL_ORDER);
+    variationalSeries(k3, s2, p, q, !thermalDone);
+    for (let i = 0; i < 6; i++) countsVariational[i] = counts[i] - p + q;
+    builder?.push(eta, sF, SENSITIVITIES);
     for (let i = 0; i < 6; i++) {
-      V[i] = horner(Y[i], 0, terms, dt);
-      W1[i] = horner(D1[i], 0, terms, dt);
-      W2[i] = horner(D2[i], 0, terms, dt);
+      V[i] = horner(Y[i], 0, counts[i], dt);
+      W1[i] = horner(D1[i], 0, countsVariational[i], dt);
+      W2[i] = horner(D2[i], 0, countsVariational[i], dt);
     }
     eta = last ? stopAt : eta + dt;
     if (!thermalDone) thermalDone = closeThermalLayer(k3, s2);
@@ -425,10 +440,9 @@ export function solveFreeConvectionUncached(Pr: number, options: { etaInfStart?:
 }
 
 function withoutReverseFlow(trace: SolutionTrace, gMax: number): boolean {
-  for (let i = 0; i + 1 < trace.length; i++) {
-    for (const x of [trace.eta[i], 0.5 * (trace.eta[i] + trace.eta[i + 1])]) {
-      if (trace.derivative(2, x) < -REVERSE_FLOW * gMax) return false;
-    }
+  for (let i = 0; i + 1 < 2 * trace.length - 1; i++) {
+    const x = i % 2 === 0 ? trace.eta[i / 2] : 0.5 * (trace.eta[(i - 1) / 2] + trace.eta[(i + 1) / 2]);
+    if (trace.derivative(2, x) < -REVERSE_FLOW * gMax) return false;
   }
   return true;
 }

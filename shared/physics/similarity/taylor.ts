@@ -28,6 +28,27 @@ export function radiusStep(scale: number, previous: number, last: number, p: num
   return 0.9 * Math.min(r1, r2) * epsRoot;
 }
 
+/**
+ * STABILITY[q]: the largest x with |Σ_{k≤q} (−y)^k/k!| ≤ 1 for all 0 ≤ y ≤ x, the stability
+ * interval of a Taylor series of order q on y' = −λy (x = λh). A series carried at a lower order
+ * than the steps were sized for (the variational equations) must keep λh inside it, or a fast
+ * decaying mode (here e^{−∫f}) grows from rounding errors.
+ */
+export const STABILITY: readonly number[] = Array.from({ length: MAX_ORDER + 1 }, (_, q) => {
+  const bounded = (y: number) => {
+    let term = 1;
+    let sum = 1;
+    for (let k = 1; k <= q; k++) {
+      term *= -y / k;
+      sum += term;
+    }
+    return Math.abs(sum) <= 1;
+  };
+  let x = 0;
+  while (x < 40 && bounded(x + 0.01)) x += 0.01;
+  return x;
+});
+
 /** Σ_{k<n} a_{o+k} τ^k. */
 export function horner(a: Float64Array, o: number, n: number, tau: number): number {
   let acc = a[o + n - 1];

@@ -1,59 +1,54 @@
 // A boundary-layer solution stored as the Taylor series of each integration step (see
-// taylor.ts), read back anywhere by evaluating the step's polynomials: the interpolant is the
-// integrator's own solution, as accurate between nodes as at them.
-import { horner, hornerDerivative, hornerSecondDerivative } from './taylor.js';
+// taylor.ts), read back anywhere by evaluating the step's polynomial: the interpolant is the
+// integrator's own solution, as accurate between nodes as at them. Only F = ∫f is stored:
+// f, f', f'' are its derivatives, and with F's series taken to order p + 3 (exact, from the
+// order-p series of f'') they keep every coefficient the integration computed.
 
 /** Number of stored derivatives: F = ∫f, f, f', f'', f''', f''''. */
 export const TRACE_ORDERS = 6;
-/** Series stored per step: F, f, f', f''; f''' and f'''' are their derivatives. */
-const SERIES = 4;
+
+/** FALLING[k][j] = j!/(j − k)!: the factor of a_j τ^{j−k} in the k-th derivative. */
+const FALLING: Float64Array[] = Array.from({ length: TRACE_ORDERS }, (_, k) =>
+  Float64Array.from({ length: 40 }, (_, j) => {
+    let v = 1;
+    for (let i = 0; i < k; i++) v *= j - i;
+    return v;
+  }),
+);
 
 /** Scratch for the builders: one integration at a time per thread, copied out by `build`. */
-let scratch = new Float64Array(2 * SERIES * 32 * 64);
+let scratch = new Float64Array(3 * 32 * 128);
 
 /**
  * Collects the steps while an integration runs (one builder in use at a time). With
- * `parameters` > 0, each step also keeps the series of ∂(F, f, f', f'')/∂s_j for each shooting
- * parameter s_j, so that `build` can return the solution for parameters moved by δ:
- * y + Σ δ_j·∂y/∂s_j, exact to O(δ²).
+ * `parameters` > 0, each step also keeps the series of ∂F/∂s_j for each shooting parameter
+ * s_j, so that `build` can return the solution for parameters moved by δ: F + Σ δ_j·∂F/∂s_j,
+ * exact to O(δ²).
  */
 export class TraceBuilder {
   private readonly eta: number[] = [];
   private segments = 0;
   private readonly stride: number;
 
-  /** `terms`: coefficients kept per series (the order of the integration plus one or two). */
+  /** `terms`: coefficients kept of F's series (the integration's order plus four). */
   constructor(
     readonly terms: number,
-    private readonly parameters = 0,
+    private readonly parameters: 0 | 1 | 2 = 0,
   ) {
-    this.stride = (1 + parameters) * SERIES * terms;
+    this.stride = (1 + parameters) * terms;
   }
 
-  /**
-   * Adds the step that starts at `eta0`: the Taylor series of F, f, f', f'' about it, then
-   * (`sensitivities`) those of ∂F/∂s_j, ∂f/∂s_j, ∂f'/∂s_j, ∂f''/∂s_j for each parameter in turn.
-   */
-  push(eta0: number, F: Float64Array, f: Float64Array, g: Float64Array, h: Float64Array, sensitivities: readonly Float64Array[] = []): void {
+  /** Adds the step that starts at `eta0`: the Taylor series of F about it, then those of ∂F/∂s_j. */
+  push(eta0: number, F: Float64Array, sensitivities: readonly Float64Array[] = []): void {
     const t = this.terms;
     if ((this.segments + 1) * this.stride > scratch.length) {
       const grown = new Float64Array(scratch.length * 2);
       grown.set(scratch);
       scratch = grown;
     }
-    const c = scratch;
     const o = this.segments * this.stride;
-    for (let k = 0; k < t; k++) {
-      c[o + k] = F[k];
-      c[o + t + k] = f[k];
-      c[o + 2 * t + k] = g[k];
-      c[o + 3 * t + k] = h[k];
-    }
-    for (let q = 0; q < SERIES * this.parameters; q++) {
-      const a = sensitivities[q];
-      const oq = o + (SERIES + q) * t;
-      for (let k = 0; k < t; k++) c[oq + k] = a[k];
-    }
+    scratch.set(F.subarray(0, t), o);
+    for (let j = 0; j < this.parameters; j++) scratch.set(sensitivities[j].subarray(0, t), o + (j + 1) * t);
     this.eta.push(eta0);
     this.segments++;
   }
@@ -61,20 +56,21 @@ export class TraceBuilder {
   /** The trace, closed at `etaEnd` (beyond the start of the last step), moved by `deltas` along ∂/∂s_j. */
   build(etaEnd: number, deltas: readonly number[] = []): SolutionTrace {
     const n = this.segments;
+    const t = this.terms;
     const eta = new Float64Array(n + 1);
     eta.set(this.eta);
     eta[n] = etaEnd;
-    const size = SERIES * this.terms;
-    const coef = new Float64Array(n * size);
+    const coef = new Float64Array(n * t);
+    const d0 = deltas[0] ?? 0;
+    const d1 = deltas[1] ?? 0;
     for (let i = 0; i < n; i++) {
       const o = i * this.stride;
-      for (let k = 0; k < size; k++) {
-        let v = scratch[o + k];
-        for (let j = 0; j < this.parameters; j++) v += (deltas[j] ?? 0) * scratch[o + (j + 1) * size + k];
-        coef[i * size + k] = v;
-      }
+      const c = i * t;
+      if (this.parameters === 0) coef.set(scratch.subarray(o, o + t), c);
+      else if (this.parameters === 1) for (let k = 0; k < t; k++) coef[c + k] = scratch[o + k] + d0 * scratch[o + t + k];
+      else for (let k = 0; k < t; k++) coef[c + k] = scratch[o + k] + d0 * scratch[o + t + k] + d1 * scratch[o + 2 * t + k];
     }
-    return new SolutionTrace(eta, coef, this.terms);
+    return new SolutionTrace(eta, coef, t);
   }
 }
 
@@ -91,19 +87,13 @@ export class SolutionTrace {
   constructor(
     /** Nodes: the start of every step, then the end of the last. */
     readonly eta: Float64Array,
-    /** Per step, the series of F, f, f', f'' in τ = η − η_i, `terms` coefficients each. */
+    /** Per step, the series of F in τ = η − η_i, `terms` coefficients each. */
     private readonly coef: Float64Array,
     private readonly terms: number,
   ) {
     const n = eta.length;
     this.d = Array.from({ length: TRACE_ORDERS }, () => new Float64Array(n));
-    const t = terms;
-    for (let i = 0; i + 1 < n; i++) {
-      const o = i * SERIES * t;
-      for (let k = 0; k < SERIES; k++) this.d[k][i] = coef[o + k * t];
-      this.d[4][i] = coef[o + 3 * t + 1];
-      this.d[5][i] = 2 * coef[o + 3 * t + 2];
-    }
+    for (let i = 0; i + 1 < n; i++) for (let k = 0; k < TRACE_ORDERS; k++) this.d[k][i] = FALLING[k][k] * coef[i * terms + k];
     const end = eta[n - 1];
     for (let k = 0; k < TRACE_ORDERS; k++) this.d[k][n - 1] = this.inside(k, n - 2, end - eta[n - 2]);
   }
@@ -136,7 +126,16 @@ export class SolutionTrace {
 
   /** F(η) = ∫₀^η f dη'. */
   F(x: number): number {
-    return this.derivative(0, x);
+    const n = this.eta.length;
+    if (x >= this.eta[n - 1]) return this.derivative(0, x);
+    const i = this.interval(x);
+    const t = this.terms;
+    const o = i * t;
+    const tau = x - this.eta[i];
+    const c = this.coef;
+    let acc = c[o + t - 1];
+    for (let j = t - 2; j >= 0; j--) acc = acc * tau + c[o + j];
+    return acc;
   }
 
   /** The k-th derivative of F (0: F, 1: f, 2: f', 3: f'', 4: f''', 5: f''''). */
@@ -162,9 +161,11 @@ export class SolutionTrace {
 
   private inside(k: number, i: number, tau: number): number {
     const t = this.terms;
-    const o = i * SERIES * t;
-    if (k < SERIES) return horner(this.coef, o + k * t, t, tau);
-    if (k === 4) return hornerDerivative(this.coef, o + 3 * t, t, tau);
-    return hornerSecondDerivative(this.coef, o + 3 * t, t, tau);
+    const o = i * t;
+    const c = this.coef;
+    const w = FALLING[k];
+    let acc = w[t - 1] * c[o + t - 1];
+    for (let j = t - 2; j >= k; j--) acc = acc * tau + w[j] * c[o + j];
+    return acc;
   }
 }
