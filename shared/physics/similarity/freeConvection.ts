@@ -227,7 +227,9 @@ const W2 = new Float64Array(6);
  * layer), its remaining integral is added to J in closed form (tailLength) and E set to zero:
  * otherwise its Taylor series would hold the steps to the thermal layer's scale all the way out.
  * Only when what this drops is negligible: the buoyancy left beyond this point, ∫θ ≈
- * −θ'(0)·E·T² with T the tail length, and the third-order terms of T's expansion.
+ * −θ'(0)·E·T² with T the tail length, and the third-order terms of T's expansion. (Far out at
+ * high Pr an explicit series keeps E at the stability limit of its step, a noise floor near
+ * 1e-12 that would never pass stricter bounds.)
  */
 function closeThermalLayer(k3: number, s2: number): boolean {
   const [, f, g, h, J, E] = V;
@@ -237,7 +239,7 @@ function closeThermalLayer(k3: number, s2: number): boolean {
   const ratio = Math.max(Math.abs(g) / (a * f), Math.sqrt(Math.abs(h) / (a * a * f)));
   if (ratio > 0.1) return false;
   const T = tailLength(k3, f, g, h);
-  if (Math.abs(s2) * E * T * T > 1e-15 || E * T * ratio ** 3 > 1e-16 * Math.abs(J)) return false;
+  if (Math.abs(s2) * E * T * T > 1e-13 || E * T * ratio ** 3 > 1e-15 * Math.abs(J)) return false;
   for (const W of [W1, W2]) {
     // ∂T/∂s: to first order through f only; the other terms are far smaller.
     W[4] += W[5] * T - (E * W[1]) / (a * f);
@@ -333,21 +335,34 @@ function shoot(Pr: number, s1: number, s2: number, eps: number, tail: number, ke
   return FAILED;
 }
 
+/** Σ c_k x^k (lowest power first) and its derivative. */
+function polynomial(c: readonly number[], x: number): [number, number] {
+  let value = 0;
+  let slope = 0;
+  for (let k = c.length - 1; k >= 0; k--) {
+    slope = slope * x + value;
+    value = value * x + c[k];
+  }
+  return [value, slope];
+}
+
+// Our own degree-7 fits in x = log10 Pr over 1e-2 … 1e4 to this solver's values (a starting
+// guess only): ln f''(0) within 0.08 %, and ln(θ'(0)/LeFevre's interpolation) within 0.04 %.
+const GUESS_SHEAR = [-0.442764, -0.367991, -0.0685788, 0.00966545, 0.000615434, -0.000724221, 0.000185067, -1.70963e-5];
+const GUESS_GRADIENT = [0.000424684, 0.000227896, -0.00214169, 0.000325703, 0.000513579, -0.000113185, -2.50758e-5, 6.07261e-6];
+
 /**
- * Starting guesses only (Newton sets the values): for f''(0) our own cubic fit of ln f''(0) in
- * log10 Pr to this solver's values on 1e-2 … 1e4 (about 1 %), continued linearly outside; for
- * −θ'(0) the interpolation formula 0.75 Pr^½ / (0.609 + 1.221 Pr^½ + 1.238 Pr)^¼ (LeFevre 1956,
- * from memory).
+ * Starting guesses only (Newton sets the values): −θ'(0) from the interpolation formula
+ * 0.75 Pr^½ / (0.609 + 1.221 Pr^½ + 1.238 Pr)^¼ (LeFevre 1956, from memory), both refined by the
+ * fits above, continued linearly in log10 Pr outside their range.
  */
 function initialGuess(Pr: number): [number, number] {
-  const c = [-0.4457, -0.36606, -0.063417, 0.0067113];
   const x = Math.log10(Pr);
   const xc = Math.min(4, Math.max(-2, x));
-  const value = c[0] + xc * (c[1] + xc * (c[2] + xc * c[3]));
-  const slope = c[1] + xc * (2 * c[2] + xc * 3 * c[3]);
-  const s1 = Math.exp(value + slope * (x - xc));
-  const s2 = (-0.75 * Math.sqrt(Pr)) / Math.pow(0.609 + 1.221 * Math.sqrt(Pr) + 1.238 * Pr, 0.25);
-  return [s1, s2];
+  const [a, aSlope] = polynomial(GUESS_SHEAR, xc);
+  const [b, bSlope] = polynomial(GUESS_GRADIENT, xc);
+  const lefevre = (-0.75 * Math.sqrt(Pr)) / Math.pow(0.609 + 1.221 * Math.sqrt(Pr) + 1.238 * Pr, 0.25);
+  return [Math.exp(a + aSlope * (x - xc)), lefevre * Math.exp(b + bSlope * (x - xc))];
 }
 
 function precisionFor(error: number): number {
@@ -372,6 +387,7 @@ function findRoot(Pr: number, guess: [number, number], minEdge: number): RootRes
   let good: [number, number] | undefined;
   let error = GUESS_ERROR;
   let previousChange = NaN;
+  let previousTail = NaN;
   let integrations = 0;
   let retreats = 0;
   for (let iter = 0; iter < 100; iter++) {
@@ -394,7 +410,8 @@ function findRoot(Pr: number, guess: [number, number], minEdge: number): RootRes
     const [r1, r2] = shot.residual;
     const step: [number, number] = [-(d * r1 - b * r2) / det, -(-c * r1 + a * r2) / det];
     const change = Math.max(Math.abs(step[0] / s[0]), Math.abs(step[1] / s[1]));
-    const curvature = newtonCurvature(change, previousChange);
+    // (Only on an unchanged domain: a longer one moves the root by its own amount.)
+    const curvature = newtonCurvature(change, tail === previousTail ? previousChange : NaN);
     if (shot.kind === 'edge' && final && change <= ACCEPT_CHANGE && curvature * change * change <= 1e-14 && shot.steps) {
       const trace = shot.steps.build(shot.edge, step);
       return { ok: true, s: [s[0] + step[0], s[1] + step[1]], shot, trace, integrations };
@@ -405,6 +422,7 @@ function findRoot(Pr: number, guess: [number, number], minEdge: number): RootRes
     const fullStep = shot.kind === 'edge' && lambda === 1;
     error = fullStep ? Math.max(curvature * change * change, 10 * eps, tail * tail, 1e-16) : Math.min(change, GUESS_ERROR * 10);
     previousChange = fullStep ? change : NaN;
+    previousTail = tail;
     good = s;
     s = [s[0] + lambda * step[0], s[1] + lambda * step[1]];
   }
