@@ -181,6 +181,26 @@ function series(beta: number, p: number, q: number, q2: number): void {
   }
 }
 
+/** Moves the state to the end of the step: each series evaluated at dt into its constant term. */
+function advance(dt: number, p: number, q: number, q2: number): void {
+  sF[0] = horner(sF, 0, p + 4, dt);
+  sf[0] = horner(sf, 0, p + 3, dt);
+  sg[0] = horner(sg, 0, p + 2, dt);
+  sh[0] = horner(sh, 0, p + 1, dt);
+  if (q > 0) {
+    sU[0] = horner(sU, 0, q + 4, dt);
+    su[0] = horner(su, 0, q + 3, dt);
+    sv[0] = horner(sv, 0, q + 2, dt);
+    sw[0] = horner(sw, 0, q + 1, dt);
+  }
+  if (q2 > 0) {
+    sU2[0] = horner(sU2, 0, q2 + 4, dt);
+    su2[0] = horner(su2, 0, q2 + 3, dt);
+    sv2[0] = horner(sv2, 0, q2 + 2, dt);
+    sw2[0] = horner(sw2, 0, q2 + 1, dt);
+  }
+}
+
 /**
  * Completes the series of F, f, f' beyond order p exactly from the order-p series of f''
  * (each is the integral of the next): F to p + 3, f to p + 2, f' to p + 1.
@@ -233,33 +253,22 @@ function shoot(beta: number, fw: number, s: number, eps: number, variational: bo
   const edgeExponent = Math.min(EDGE_EXPONENT, 4 - Math.log(eps));
   const builder = keepTrace ? new TraceBuilder(terms, q2 > 0 ? 2 : q > 0 ? 1 : 0) : undefined;
   let eta = 0;
-  let F = 0, f = fw, g = 0, h = s;
-  let U = 0, u = 0, v = 0, w = 1;
-  let U2 = 0, u2 = 0, v2 = 0, w2 = 0;
+  // The state lives in the series' constant terms: the step evaluates each series in place.
+  sF[0] = 0;
+  sf[0] = fw;
+  sg[0] = 0;
+  sh[0] = s;
+  sU[0] = su[0] = sv[0] = 0;
+  sw[0] = 1;
+  sU2[0] = su2[0] = sv2[0] = sw2[0] = 0;
   let FMin = 0;
   let stopAt = Infinity;
   for (let step = 0; step < MAX_STEPS; step++) {
-    sF[0] = F;
-    sf[0] = f;
-    sg[0] = g;
-    sh[0] = h;
-    if (variational) {
-      sU[0] = U;
-      su[0] = u;
-      sv[0] = v;
-      sw[0] = w;
-    }
-    if (q2 > 0) {
-      sU2[0] = U2;
-      su2[0] = u2;
-      sv2[0] = v2;
-      sw2[0] = w2;
-    }
     series(beta, p, q, q2);
     let dt = stepFor(p, epsRoot);
     // The variations decay like e^{−∫f} far out, faster than the solution's steps resolve:
     // keep f·h inside the stability interval of their (lower) order.
-    if (q > 0) dt = Math.min(dt, (0.9 * STABILITY[q2 > 0 ? q2 : q]) / (Math.abs(f) + 0.5));
+    if (q > 0) dt = Math.min(dt, (0.9 * STABILITY[q2 > 0 ? q2 : q]) / (Math.abs(sf[0]) + 0.5));
     if (!(dt > 1e-9)) return failedShot();
     if (stopAt === Infinity && eta + dt > ETA_INF_MAX) return failedShot();
     // The edge: F − F_min reaches the edge exponent within this step.
@@ -268,22 +277,8 @@ function shoot(beta: number, fw: number, s: number, eps: number, variational: bo
     const last = eta + dt >= stopAt;
     if (last) dt = stopAt - eta;
     builder?.push(eta, sF, SENSITIVITIES);
-    F = horner(sF, 0, terms, dt);
-    f = horner(sf, 0, p + 3, dt);
-    g = horner(sg, 0, p + 2, dt);
-    h = horner(sh, 0, p + 1, dt);
-    if (variational) {
-      U = horner(sU, 0, q + 4, dt);
-      u = horner(su, 0, q + 3, dt);
-      v = horner(sv, 0, q + 2, dt);
-      w = horner(sw, 0, q + 1, dt);
-    }
-    if (q2 > 0) {
-      U2 = horner(sU2, 0, q2 + 4, dt);
-      u2 = horner(su2, 0, q2 + 3, dt);
-      v2 = horner(sv2, 0, q2 + 2, dt);
-      w2 = horner(sw2, 0, q2 + 1, dt);
-    }
+    advance(dt, p, q, q2);
+    const F = sF[0], f = sf[0], g = sg[0], h = sh[0], v = sv[0], w = sw[0];
     eta = last ? stopAt : eta + dt;
     if (!Number.isFinite(F + f + g + h)) return failedShot();
     // The attached profile rises monotonically to f' = 1: a trial that clearly overshoots has
@@ -305,7 +300,7 @@ function shoot(beta: number, fw: number, s: number, eps: number, variational: bo
       }
       const residual = plain + h / lambda;
       const slope = variational ? v + w / lambda : NaN;
-      const curvature = q2 > 0 ? v2 + w2 / lambda : NaN;
+      const curvature = q2 > 0 ? sv2[0] + sw2[0] / lambda : NaN;
       return { kind: 'edge', residual, slope, curvature, plain, slopePlain: v, edge: eta, steps: builder };
     }
   }

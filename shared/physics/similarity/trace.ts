@@ -47,8 +47,13 @@ export class TraceBuilder {
       scratch = grown;
     }
     const o = this.segments * this.stride;
-    scratch.set(F.subarray(0, t), o);
-    for (let j = 0; j < this.parameters; j++) scratch.set(sensitivities[j].subarray(0, t), o + (j + 1) * t);
+    const c = scratch;
+    for (let k = 0; k < t; k++) c[o + k] = F[k];
+    for (let j = 0; j < this.parameters; j++) {
+      const a = sensitivities[j];
+      const oj = o + (j + 1) * t;
+      for (let k = 0; k < t; k++) c[oj + k] = a[k];
+    }
     this.eta.push(eta0);
     this.segments++;
   }
@@ -66,7 +71,7 @@ export class TraceBuilder {
     for (let i = 0; i < n; i++) {
       const o = i * this.stride;
       const c = i * t;
-      if (this.parameters === 0) coef.set(scratch.subarray(o, o + t), c);
+      if (this.parameters === 0) for (let k = 0; k < t; k++) coef[c + k] = scratch[o + k];
       else if (this.parameters === 1) for (let k = 0; k < t; k++) coef[c + k] = scratch[o + k] + d0 * scratch[o + t + k];
       else for (let k = 0; k < t; k++) coef[c + k] = scratch[o + k] + d0 * scratch[o + t + k] + d1 * scratch[o + 2 * t + k];
     }
