@@ -48,7 +48,7 @@ export interface FalknerSkanSolution {
 export const BLOWOFF_WALL_SHEAR = 1e-9;
 
 /** Local error per Taylor step of the final shot. */
-const EPS_FINAL = 1e-13;
+const EPS_FINAL = 1e-12;
 /** The cheapest shots: far from the root their error does not matter. */
 const EPS_COARSE = 1e-5;
 /**
@@ -242,15 +242,13 @@ function edgeInStep(target: number, terms: number, h: number): number {
  * One trial f''(0) = s, integrated at local precision `eps` until the layer has decayed (or
  * to `minEdge`, if farther). `variational` also carries ∂/∂s for Newton's slope.
  */
-function shoot(beta: number, fw: number, s: number, eps: number, variational: boolean, keepTrace: boolean, minEdge: number): Shot {
+function shoot(beta: number, fw: number, s: number, eps: number, edgeExponent: number, variational: boolean, keepTrace: boolean, minEdge: number): Shot {
   const p = orderFor(eps);
   const q = variational ? Math.min(p, VARIATIONAL_ORDER) : 0;
   // The final shot also carries the second variation: its correction is then exact to O(δ³).
   const q2 = keepTrace && variational ? Math.min(q, SECOND_VARIATION_ORDER) : 0;
   const epsRoot = Math.pow(eps, 1 / p);
   const terms = p + 4;
-  // A coarse shot needs a shorter domain only: what lies beyond is far below its own error.
-  const edgeExponent = Math.min(EDGE_EXPONENT, 4 - Math.log(eps));
   const builder = keepTrace ? new TraceBuilder(terms, q2 > 0 ? 2 : q > 0 ? 1 : 0) : undefined;
   let eta = 0;
   // The state lives in the series' constant terms: the step evaluates each series in place.
@@ -377,17 +375,23 @@ function findRoot(beta: number, fw: number, guess: number, lo0: number, minEdge:
     if (!floorChecked && iter >= SHOTS_BEFORE_FLOOR_CHECK) {
       floorChecked = true;
       integrations++;
-      const floor = shoot(beta, fw, lo0, precisionFor(0, scale), false, false, minEdge);
+      const floor = shoot(beta, fw, lo0, precisionFor(0, scale), EDGE_EXPONENT, false, false, minEdge);
       if (floor.kind === 'over' || (floor.kind === 'edge' && floor.residual >= 0)) return { kind: 'separation', s: NaN, integrations };
     }
     const final = error <= FINAL_ERROR;
     const eps = precisionFor(error, scale);
-    const shot = shoot(beta, fw, s, eps, true, final, minEdge);
+    // A coarse iterate needs a shorter domain only: what lies beyond moves the root by about
+    // e^{−exponent}, far below the iterate's own error (and a trial off by a few per cent
+    // diverges less on it). Not for β < 0: there the other far-field solution, ξ^{2β}, decays
+    // too, and the root moves with the domain algebraically, by far more near separation.
+    const edgeExponent = final || beta < 0 ? EDGE_EXPONENT : Math.min(EDGE_EXPONENT, Math.max(8, 4 - 2 * Math.log(error)));
+    const shot = shoot(beta, fw, s, eps, edgeExponent, true, final, minEdge);
     integrations++;
     if (shot.kind === 'failed') return { kind: 'failed', s, integrations };
     const r = shot.residual;
-    // Only a residual well above the shot's own error may move the bracket.
-    if (!Number.isFinite(r) || Math.abs(r) > 10 * eps) {
+    // Only a residual well above the shot's own error (precision, and the domain cut at
+    // e^{−exponent}) may move the bracket.
+    if (!Number.isFinite(r) || Math.abs(r) > 10 * eps + s * Math.exp(-edgeExponent)) {
       if (r < 0) lo = Math.max(lo, s);
       else if (r > 0) hi = Math.min(hi, s);
     }

@@ -60,15 +60,35 @@ export function expIntegral(trace: SolutionTrace, P: number, a: number, Fref: nu
   let converged = inner.converged;
   const exponentAtEdge = P * (trace.d[0][n - 1] - Fref);
   if (exponentAtEdge < NEGLIGIBLE_EXPONENT + 10) {
-    const t = outerIntegral(P, trace.d[1][n - 1], ge);
-    value += Math.exp(-exponentAtEdge) * t.value;
+    // The outer part only needs the accuracy its weight e^{−exponent} leaves to the sum.
+    const weight = Math.exp(-exponentAtEdge);
+    const t = outerIntegral(P, trace.d[1][n - 1], ge, (REL_TOL * value) / weight);
+    value += weight * t.value;
     converged = converged && t.converged;
   }
   return { value, converged };
 }
 
-/** ∫₀^∞ exp(−P (f_a τ + g τ²/2)) dτ: the outer flow, where f'' = 0 and f' = g. */
-function outerIntegral(P: number, fa: number, g: number): ExpIntegral {
+/**
+ * ∫₀^∞ exp(−P (f_a τ + g τ²/2)) dτ: the outer flow, where f'' = 0 and f' = g, to an absolute
+ * accuracy `absTol` (relative REL_TOL when not given). It equals √(π/(2Pg))·erfcx(f_a√(P/(2g)));
+ * for a large argument x the asymptotic series of erfcx (Abramowitz & Stegun 7.1.23) gives
+ * (1/(P f_a))·Σ (−1)ⁿ (2n−1)!!/(2x²)ⁿ, used when its smallest term is within the tolerance.
+ */
+function outerIntegral(P: number, fa: number, g: number, absTol = 0): ExpIntegral {
+  const leading = 1 / (P * fa);
+  if (g > 0 && fa > 0 && absTol > 0) {
+    const twoX2 = (fa * fa * P) / g;
+    let term = 1;
+    let sum = 1;
+    for (let k = 1; k < 60; k++) {
+      const next = (-term * (2 * k - 1)) / twoX2;
+      if (Math.abs(next) >= Math.abs(term)) break; // the series starts to diverge
+      term = next;
+      sum += term;
+      if (Math.abs(term) * leading < 0.1 * absTol) return { value: sum * leading, converged: true };
+    }
+  }
   // P (f_a τ + g τ²/2) reaches the negligible exponent at τ_end.
   const need = NEGLIGIBLE_EXPONENT / P;
   const tauEnd = g > 0 ? (2 * need) / (fa + Math.sqrt(fa * fa + 2 * g * need)) : need / fa;
@@ -77,7 +97,7 @@ function outerIntegral(P: number, fa: number, g: number): ExpIntegral {
   const points = [0];
   for (let t = 0.25 * Math.min(1 / (P * Math.abs(fa)), Math.sqrt(2 / (P * Math.abs(g)))); t < tauEnd; t *= 4) points.push(t);
   points.push(tauEnd);
-  const q = adaptiveQuadrature((t) => Math.exp(-P * t * (fa + 0.5 * g * t)), points, REL_TOL);
+  const q = adaptiveQuadrature((t) => Math.exp(-P * t * (fa + 0.5 * g * t)), points, REL_TOL, absTol);
   return { value: q.value, converged: q.converged };
 }
 
