@@ -97,7 +97,8 @@ export class SolutionTrace {
     private readonly terms: number,
   ) {
     const n = eta.length;
-    this.d = Array.from({ length: TRACE_ORDERS }, () => new Float64Array(n));
+    const nodes = new Float64Array(TRACE_ORDERS * n);
+    this.d = Array.from({ length: TRACE_ORDERS }, (_, k) => nodes.subarray(k * n, (k + 1) * n));
     for (let i = 0; i + 1 < n; i++) for (let k = 0; k < TRACE_ORDERS; k++) this.d[k][i] = FALLING[k][k] * coef[i * terms + k];
     const end = eta[n - 1];
     for (let k = 0; k < TRACE_ORDERS; k++) this.d[k][n - 1] = this.inside(k, n - 2, end - eta[n - 2]);
