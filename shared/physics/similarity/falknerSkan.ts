@@ -439,9 +439,8 @@ function findRoot(beta: number, fw: number, guess: number, lo0: number, minEdge:
 function firstCrossing(trace: SolutionTrace, k: number, level: number, from = 0): number {
   // First η where derivative k of F rises through `level`: nodes, then Newton on the step's
   // polynomial safeguarded by bisection.
-  const d = trace.d[k];
   let i = from;
-  while (i < trace.length && d[i] < level) i++;
+  while (i < trace.length && trace.node(k, i) < level) i++;
   if (i === 0) return trace.eta[0];
   if (i >= trace.length) return NaN;
   let a = trace.eta[i - 1];
@@ -520,10 +519,9 @@ function isAttachedProfile(trace: SolutionTrace): boolean {
   // The attached branch has 0 ≤ f' ≤ 1 and f'' ≥ 0 throughout: spurious roots break these by
   // O(1) (checked at the nodes, and f' between them too); the margins only absorb the residual
   // left at η∞, where for β > 0 the sensitivity ∂f'(η∞)/∂s grows like η∞^{2β}.
-  const g = trace.d[2];
-  const h = trace.d[3];
   for (let i = 0; i < trace.length; i++) {
-    if (g[i] < -1e-6 || g[i] > 1 + 1e-6 || h[i] < -1e-6) return false;
+    const g = trace.node(2, i);
+    if (g < -1e-6 || g > 1 + 1e-6 || trace.node(3, i) < -1e-6) return false;
     if (i + 1 < trace.length) {
       const mid = trace.derivative(2, 0.5 * (trace.eta[i] + trace.eta[i + 1]));
       if (mid < -1e-6 || mid > 1 + 1e-6) return false;

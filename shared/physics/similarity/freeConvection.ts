@@ -454,7 +454,7 @@ export function solveFreeConvectionUncached(Pr: number, options: { etaInfStart?:
   const [c1, c2] = root.shot.correction;
   const det = a * d - b * c;
   const change = Math.max(Math.abs((d * c1 - b * c2) / det / root.s[0]), Math.abs((-c * c1 + a * c2) / det / root.s[1]));
-  return finish(Pr, root.s, root.trace, root.trace.d[1][root.trace.length - 1], root.shot.edge, change, root.integrations);
+  return finish(Pr, root.s, root.trace, root.trace.node(1, root.trace.length - 1), root.shot.edge, change, root.integrations);
 }
 
 function withoutReverseFlow(trace: SolutionTrace, gMax: number): boolean {
@@ -467,9 +467,8 @@ function withoutReverseFlow(trace: SolutionTrace, gMax: number): boolean {
 
 function finish(Pr: number, s: [number, number], trace: SolutionTrace, fEnd: number, etaInf: number, change: number, integrations: number): FreeConvectionSolution {
   // Maximum of f' where f'' changes sign, then the outer 1 % point.
-  const h = trace.d[3];
   let i = 1;
-  while (i < trace.length && h[i] > 0) i++;
+  while (i < trace.length && trace.node(3, i) > 0) i++;
   let a = trace.eta[i - 1];
   let b = trace.eta[Math.min(i, trace.length - 1)];
   for (let it = 0; it < 100 && b - a > 1e-15 * b; it++) {
@@ -480,9 +479,8 @@ function finish(Pr: number, s: [number, number], trace: SolutionTrace, fEnd: num
   const etaMax = 0.5 * (a + b);
   const uMax = trace.derivative(2, etaMax);
   const level = 0.01 * uMax;
-  const g = trace.d[2];
   let j = i;
-  while (j < trace.length && g[j] > level) j++;
+  while (j < trace.length && trace.node(2, j) > level) j++;
   let eta99 = NaN;
   if (j < trace.length) {
     let lo = trace.eta[j - 1];

@@ -32,9 +32,9 @@ export interface ExpIntegral {
 export function expIntegral(trace: SolutionTrace, P: number, a: number, Fref: number, etaMin: number, gAtMin: number): ExpIntegral {
   const edge = trace.lastEta;
   const n = trace.length;
-  const ge = trace.d[2][n - 1];
+  const ge = trace.node(2, n - 1);
   if (a >= edge) {
-    const fa = trace.d[1][n - 1] + ge * (a - edge);
+    const fa = trace.node(1, n - 1) + ge * (a - edge);
     const t = outerIntegral(P, fa, ge);
     return { value: Math.exp(-P * (trace.F(a) - Fref)) * t.value, converged: t.converged };
   }
@@ -58,11 +58,11 @@ export function expIntegral(trace: SolutionTrace, P: number, a: number, Fref: nu
   const inner = adaptiveQuadrature(integrand, points, REL_TOL);
   let value = inner.value;
   let converged = inner.converged;
-  const exponentAtEdge = P * (trace.d[0][n - 1] - Fref);
+  const exponentAtEdge = P * (trace.node(0, n - 1) - Fref);
   if (exponentAtEdge < NEGLIGIBLE_EXPONENT + 10) {
     // The outer part only needs the accuracy its weight e^{−exponent} leaves to the sum.
     const weight = Math.exp(-exponentAtEdge);
-    const t = outerIntegral(P, trace.d[1][n - 1], ge, (REL_TOL * value) / weight);
+    const t = outerIntegral(P, trace.node(1, n - 1), ge, (REL_TOL * value) / weight);
     value += weight * t.value;
     converged = converged && t.converged;
   }
@@ -115,15 +115,14 @@ function eFoldLength(trace: SolutionTrace, P: number, start: number): number {
 /** Smallest η ≥ start (to node precision) beyond which P·(F − Fref) exceeds the negligible exponent. */
 function negligibleFrom(trace: SolutionTrace, P: number, start: number, Fref: number): number {
   const target = Fref + NEGLIGIBLE_EXPONENT / P;
-  const F = trace.d[0];
   const n = trace.length;
-  if (F[n - 1] < target) return trace.lastEta;
+  if (trace.node(0, n - 1) < target) return trace.lastEta;
   // F increases beyond the minimum: binary search the nodes.
   let lo = trace.interval(start);
   let hi = n - 1;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
-    if (F[mid] < target) lo = mid;
+    if (trace.node(0, mid) < target) lo = mid;
     else hi = mid;
   }
   return Math.max(trace.eta[hi], start);

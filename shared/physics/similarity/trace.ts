@@ -4,7 +4,7 @@
 // f, f', f'' are its derivatives, and with F's series taken to order p + 3 (exact, from the
 // order-p series of f'') they keep every coefficient the integration computed.
 
-/** Number of stored derivatives: F = ∫f, f, f', f'', f''', f''''. */
+/** Number of derivatives read back: F = ∫f, f, f', f'', f''', f''''. */
 export const TRACE_ORDERS = 6;
 
 /** FALLING[k][j] = j!/(j − k)!: the factor of a_j τ^{j−k} in the k-th derivative. */
@@ -85,8 +85,8 @@ export class TraceBuilder {
  * (f'_e = 1 for forced flow, 0 for free convection).
  */
 export class SolutionTrace {
-  /** d[k][i] = k-th derivative of F at node i. */
-  readonly d: Float64Array[];
+  /** Derivatives 0 … 5 of F at the last node (the others are read off the coefficients). */
+  private readonly end = new Float64Array(TRACE_ORDERS);
   private last = 0;
 
   constructor(
@@ -97,11 +97,7 @@ export class SolutionTrace {
     private readonly terms: number,
   ) {
     const n = eta.length;
-    const nodes = new Float64Array(TRACE_ORDERS * n);
-    this.d = Array.from({ length: TRACE_ORDERS }, (_, k) => nodes.subarray(k * n, (k + 1) * n));
-    for (let i = 0; i + 1 < n; i++) for (let k = 0; k < TRACE_ORDERS; k++) this.d[k][i] = FALLING[k][k] * coef[i * terms + k];
-    const end = eta[n - 1];
-    for (let k = 0; k < TRACE_ORDERS; k++) this.d[k][n - 1] = this.inside(k, n - 2, end - eta[n - 2]);
+    for (let k = 0; k < TRACE_ORDERS; k++) this.end[k] = this.inside(k, n - 2, eta[n - 1] - eta[n - 2]);
   }
 
   get length(): number {
@@ -150,19 +146,20 @@ export class SolutionTrace {
     const end = this.eta[n - 1];
     if (x >= end) {
       const tau = x - end;
-      const d = this.d;
-      if (k === 0) return d[0][n - 1] + d[1][n - 1] * tau + 0.5 * d[2][n - 1] * tau * tau;
-      if (k === 1) return d[1][n - 1] + d[2][n - 1] * tau;
-      if (k === 2) return d[2][n - 1];
+      const d = this.end;
+      if (k === 0) return d[0] + d[1] * tau + 0.5 * d[2] * tau * tau;
+      if (k === 1) return d[1] + d[2] * tau;
+      if (k === 2) return d[2];
       return 0;
     }
     const i = this.interval(x);
     return this.inside(k, i, x - this.eta[i]);
   }
 
-  /** Node value of derivative k. */
+  /** Node value of derivative k (0: F, 1: f, 2: f', 3: f'', 4: f''', 5: f''''). */
   node(k: number, i: number): number {
-    return this.d[k][i];
+    if (i >= this.eta.length - 1) return this.end[k];
+    return FALLING[k][k] * this.coef[i * this.terms + k];
   }
 
   private inside(k: number, i: number, tau: number): number {
