@@ -73,6 +73,9 @@ export const VARIATIONAL_ORDER = 9;
 /** Order of the second variation (final shots): it enters the result multiplied by δ²/2 ≤ 2e-10. */
 const SECOND_VARIATION_ORDER = 6;
 const MAX_STEPS = 5000;
+/** Taylor steps one solve may spend in all before it gives up as `not-converged` (bounded time). */
+const WORK_STEPS = 50_000;
+let stepsLeft = WORK_STEPS;
 /** Relative error of `initialGuess` assumed before the first shot. */
 const GUESS_ERROR = 0.05;
 
@@ -262,6 +265,7 @@ function shoot(beta: number, fw: number, s: number, eps: number, edgeExponent: n
   let FMin = 0;
   let stopAt = Infinity;
   for (let step = 0; step < MAX_STEPS; step++) {
+    if (--stepsLeft < 0) return failedShot();
     series(beta, p, q, q2);
     let dt = stepFor(p, epsRoot);
     // The variations decay like e^{−∫f} far out, faster than the solution's steps resolve:
@@ -487,6 +491,7 @@ export function solveFalknerSkanUncached(m: number, wallBlowing = 0, options: So
     integrations: 0,
   };
   const minEdge = Math.min(options.etaInfStart ?? 0, ETA_INF_MAX);
+  stepsLeft = WORK_STEPS;
   // The attached branch needs residual(lo) < 0: with s = 0 (or, with blowing, s at the
   // blow-off floor) a non-negative residual means no attached root exists above it.
   const lo = fw < 0 ? BLOWOFF_WALL_SHEAR : 0;

@@ -52,7 +52,17 @@ const TAIL = 2e-6;
 /** Reverse flow beyond this fraction of the maximum velocity rejects a trial or a root. */
 const REVERSE_FLOW = 1e-3;
 const ETA_INF_MAX = 3000;
-const MAX_STEPS = 4000;
+const MAX_STEPS = 20_000;
+/**
+ * Taylor steps one solve may spend in all (about a second): far outside the fitted Pr range
+ * (Pr < 3e-4, where the velocity's decay e^{−3fη} makes the series stiff over a very long
+ * domain) the answer is `not-converged` after a bounded time rather than minutes.
+ */
+const WORK_STEPS = 300_000;
+let stepsLeft = WORK_STEPS;
+/** Likewise for the number of shots (trials that fail at once cost few steps each). */
+const WORK_SHOTS = 1200;
+let shotsLeft = WORK_SHOTS;
 const GUESS_ERROR = 0.05;
 
 // Series buffers: y = [F, f, f', f'', J, E], then ∂y/∂f''(0) (suffix 1), then ∂y/∂θ'(0) (suffix 2).
@@ -256,6 +266,7 @@ function closeThermalLayer(k3: number, s2: number): boolean {
  * misbehaving tail, or a failure.
  */
 function shoot(Pr: number, s1: number, s2: number, eps: number, tail: number, keepTrace: boolean, minEdge: number): Shot {
+  if (--shotsLeft < 0) return FAILED;
   const k3 = 3 * Pr;
   const p = orderFor(eps);
   const epsRoot = Math.pow(eps, 1 / p);
@@ -272,6 +283,7 @@ function shoot(Pr: number, s1: number, s2: number, eps: number, tail: number, ke
   let thermalDone = false;
   let stopAt = Infinity;
   for (let step = 0; step < MAX_STEPS; step++) {
+    if (--stepsLeft < 0) return FAILED;
     for (let i = 0; i < 6; i++) {
       Y[i][0] = V[i];
       D1[i][0] = W1[i];
@@ -446,15 +458,54 @@ export function solveFreeConvectionUncached(Pr: number, options: { etaInfStart?:
     etaInfChange: NaN,
     integrations: 0,
   };
-  const root = findRoot(Pr, initialGuess(Pr), Math.min(options.etaInfStart ?? 0, ETA_INF_MAX));
-  if (!root.ok || !root.trace || !root.shot) return { ...failed, integrations: root.integrations };
-  // Buoyancy drives u > 0 everywhere: a root with reverse flow is a spurious one.
-  if (!withoutReverseFlow(root.trace, root.shot.gMax)) return { ...failed, integrations: root.integrations };
+  const minEdge = Math.min(options.etaInfStart ?? 0, ETA_INF_MAX);
+  const work = { integrations: 0 };
+  stepsLeft = WORK_STEPS;
+  shotsLeft = WORK_SHOTS;
+  const root = physicalRoot(Pr, initialGuess(Pr), minEdge, work) ?? continuationInPr(Pr, minEdge, work);
+  if (!root?.trace || !root.shot) return { ...failed, integrations: work.integrations };
   const [[a, b], [c, d]] = root.shot.jacobian;
   const [c1, c2] = root.shot.correction;
   const det = a * d - b * c;
   const change = Math.max(Math.abs((d * c1 - b * c2) / det / root.s[0]), Math.abs((-c * c1 + a * c2) / det / root.s[1]));
-  return finish(Pr, root.s, root.trace, root.trace.node(1, root.trace.length - 1), root.shot.edge, change, root.integrations);
+  return finish(Pr, root.s, root.trace, root.trace.node(1, root.trace.length - 1), root.shot.edge, change, work.integrations);
+}
+
+/** A root from `guess` without reverse flow (buoyancy drives u > 0 everywhere: one with is spurious). */
+function physicalRoot(Pr: number, guess: [number, number], minEdge: number, work: { integrations: number }): RootResult | undefined {
+  if (stepsLeft <= 0 || shotsLeft <= 0) return undefined;
+  const root = findRoot(Pr, guess, minEdge);
+  work.integrations += root.integrations;
+  return root.ok && root.trace && root.shot && withoutReverseFlow(root.trace, root.shot.gMax) ? root : undefined;
+}
+
+/** Largest factor in Pr per continuation step. */
+const PR_STEP = Math.sqrt(10);
+
+/**
+ * The fallback when the direct start fails (far outside 1e-2 ≤ Pr ≤ 1e4, where the starting
+ * fits are extrapolated): solve at the nearest end of that range, then step towards Pr by
+ * factors of up to √10, each start the previous root scaled by the fits' own ratio, a failed
+ * step retried at half the distance (in log Pr). It depends on Pr alone, so the answer does too.
+ */
+function continuationInPr(Pr: number, minEdge: number, work: { integrations: number }): RootResult | undefined {
+  let from = Math.min(1e4, Math.max(1e-2, Pr));
+  if (from === Pr) return undefined;
+  let root = physicalRoot(from, initialGuess(from), 0, work);
+  for (let steps = 0; root && from !== Pr && steps < 40; steps++) {
+    let to = Math.min(Math.max(Pr, from / PR_STEP), from * PR_STEP);
+    let next: RootResult | undefined;
+    for (let tries = 0; tries < 6 && !next; tries++) {
+      if (tries > 0) to = Math.sqrt(from * to);
+      const [g0, g1] = initialGuess(from);
+      const [h0, h1] = initialGuess(to);
+      next = physicalRoot(to, [(root.s[0] * h0) / g0, (root.s[1] * h1) / g1], to === Pr ? minEdge : 0, work);
+    }
+    if (!next) return undefined;
+    root = next;
+    from = to;
+  }
+  return from === Pr ? root : undefined;
 }
 
 function withoutReverseFlow(trace: SolutionTrace, gMax: number): boolean {
