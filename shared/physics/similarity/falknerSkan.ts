@@ -3,10 +3,14 @@
 //   η = y·√((m+1)U/(2νx)),  ψ = √(2νxU/(m+1))·f(η),
 //   f(0) = f_w, f'(0) = 0, f'(∞) = 1.
 // Blasius is m = β = 0. Solved by shooting on s = f''(0): Newton with the variational equation,
-// kept inside a sign bracket, on a Taylor-series integration (taylor.ts) whose precision rises
-// with the iterate's (cheap low-order shots far from the root, full precision for the last two).
-// The outer edge η∞ is where the layer has decayed (F = ∫f has grown by EDGE_EXPONENT past its
-// minimum), with the asymptotic far-field condition imposed there instead of f'(η∞) = 1.
+// kept inside a sign bracket, on a Taylor-series integration (taylor.ts) whose precision and
+// domain grow with the iterate's accuracy (cheap low-order shots far from the root); the last,
+// full-precision shot is moved onto the root along its first and second variations. The outer
+// edge η∞ is where the layer has decayed (F = ∫f has grown by EDGE_EXPONENT past its minimum),
+// with the asymptotic far-field condition imposed there instead of f'(η∞) = 1.
+// Every solve starts from the same fit, with no state carried over from other points (no
+// continuation from a neighbour): a point's value, to the last bit, does not depend on which
+// worker solved it or what it solved before.
 import { SolutionTrace, TraceBuilder } from './trace.js';
 import { LruCache, registerCache, solveCounts } from './cache.js';
 import { horner, orderFor, radiusStep, SERIES_LENGTH, STABILITY } from './taylor.js';
@@ -66,7 +70,7 @@ const EDGE_EXPONENT = 29;
 const ETA_INF_MAX = 120;
 /**
  * Order of the variational series. The steps are sized for the solution at order p, so order q
- * leaves a relative error of about ε^{(q+1)/p} (1e-8 at ε = 1e-13, p = 16): ample for Newton's
+ * leaves a relative error of about ε^{(q+1)/p} (1e-8 at ε = 1e-12, p = 15): ample for Newton's
  * slope and for the final correction δ·∂y/∂s with δ ≤ ACCEPT_CHANGE, at a fraction of the work.
  */
 export const VARIATIONAL_ORDER = 9;
@@ -423,8 +427,7 @@ function findRoot(beta: number, fw: number, guess: number, lo0: number, minEdge:
         return { kind: 'root', s: s + delta, shot: { ...shot, residual: 0, plain: shot.plain + delta * shot.slopePlain }, trace, integrations };
       }
       // The next iterate is off by about C·change², or by what this shot's precision allows
-      // (its residual error ε over s·∂r/∂s);
-      // a step from a shorter domain only by about its own size.
+      // (its residual error ε over s·∂r/∂s); a step from a shorter domain only by its own size.
       error = shot.kind === 'edge' ? Math.max(curvature * change * change, eps / scale, 1e-16) : change;
       previousChange = shot.kind === 'edge' ? change : NaN;
       s = newton;

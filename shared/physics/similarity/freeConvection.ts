@@ -3,12 +3,15 @@
 //   f(0) = f'(0) = 0, θ(0) = 1, f'(∞) = 0, θ(∞) = 0,
 //   η = (y/x)(Gr_x/4)^¼,  ψ = 4ν (Gr_x/4)^¼ f(η),  u = U_c f',  U_c = 2√(gβΔT x) = (2ν/x)·Gr_x^½.
 // Shooting on (f''(0), θ'(0)) with Newton and the variational equations, on a Taylor-series
-// integration (taylor.ts) whose precision rises with the iterate's. The energy equation is
+// integration (taylor.ts) whose precision and domain grow with the iterate's accuracy; the last,
+// full-precision shot is moved onto the root along its variations. The energy equation is
 // carried as its first integral θ' = θ'(0)·E, E = e^{−3 Pr F}, F = ∫f, θ = 1 + θ'(0)·J, J' = E,
-// with E' = −3 Pr f E: every equation is then polynomial, and the thin high-Pr thermal layer
-// costs no stiffness. The outer edge is where both tails have decayed to TAIL, with
-// asymptotic far-field conditions there; a trial that misbehaves before (reverse flow, a
-// velocity that rises again, θ < 0) gives its Newton step from where it left, a shorter domain.
+// with E' = −3 Pr f E: every equation is then polynomial; a thin high-Pr thermal layer is closed
+// in closed form once it has decayed. The outer edge is where both tails have decayed to TAIL,
+// with asymptotic far-field conditions there; a trial that misbehaves before (reverse flow, a
+// velocity that rises again) gives its Newton step from where it left, a shorter domain.
+// Every solve starts from the same fits (no continuation from other points), so a value does
+// not depend on which worker solved it or what it solved before.
 import { SolutionTrace, TraceBuilder } from './trace.js';
 import { LruCache, registerCache, solveCounts } from './cache.js';
 import { horner, orderFor, radiusStep, SERIES_LENGTH } from './taylor.js';
@@ -44,11 +47,15 @@ const EPS_COARSE = 1e-10;
 /** Full precision once the iterate is this close; accepted (moved by δ along ∂/∂s) when δ is below ACCEPT_CHANGE. */
 const FINAL_ERROR = 3e-8;
 const ACCEPT_CHANGE = 1e-7;
+/** After this many full-precision shots a correction below NOISE_FLOOR_CHANGE is taken as final. */
+const STALLED_FINAL_SHOTS = 3;
+const NOISE_FLOOR_CHANGE = 1e-6;
 /**
  * The edge: f' below TAIL times its maximum and θ below TAIL (e^{−13}). The far-field
  * conditions are exact for the linearised tails, so what they leave is of order TAIL².
  */
 const TAIL = 2e-6;
+const TAIL_GROWTH = 30;
 /** Reverse flow beyond this fraction of the maximum velocity rejects a trial or a root. */
 const REVERSE_FLOW = 1e-3;
 const ETA_INF_MAX = 3000;
@@ -65,7 +72,7 @@ const WORK_SHOTS = 1200;
 let shotsLeft = WORK_SHOTS;
 const GUESS_ERROR = 0.05;
 
-// Series buffers: y = [F, f, f', f'', J, E], then ∂y/∂f''(0) (suffix 1), then ∂y/∂θ'(0) (suffix 2).
+// Series buffers: y = [F, f, f', f'', J, E] (s…), then ∂y/∂f''(0) (a…), then ∂y/∂θ'(0) (b…).
 const buffer = () => new Float64Array(SERIES_LENGTH);
 const sF = buffer(), sf = buffer(), sg = buffer(), sh = buffer(), sJ = buffer(), sE = buffer();
 const aF = buffer(), af = buffer(), ag = buffer(), ah = buffer(), aJ = buffer(), aE = buffer();
@@ -400,22 +407,29 @@ function findRoot(Pr: number, guess: [number, number], minEdge: number): RootRes
   let error = GUESS_ERROR;
   let previousChange = NaN;
   let previousTail = NaN;
+  let finalShots = 0;
+  let reachedTail = 1;
+  let tailGrowth = Infinity;
   let integrations = 0;
   let retreats = 0;
   for (let iter = 0; iter < 100; iter++) {
-    const eps = precisionFor(error);
-    const final = eps === EPS_FINAL;
-    // The domain grows with the iterate's precision: tails of size τ leave errors of order τ².
-    const tail = final ? TAIL : Math.max(TAIL, 0.1 * Math.sqrt(error));
+    // The domain grows with the iterate's precision (tails of size τ leave errors of order τ²);
+    // once a shot has failed, by at most a factor TAIL_GROWTH in τ per shot from the last one
+    // that got through (a long domain at once can throw a still rough iterate far off).
+    const final = precisionFor(error) === EPS_FINAL && reachedTail / tailGrowth <= TAIL;
+    const tail = final ? TAIL : Math.max(TAIL, 0.1 * Math.sqrt(error), reachedTail / tailGrowth);
+    const eps = final ? EPS_FINAL : Math.max(precisionFor(error), 10 * EPS_FINAL);
     const shot = shoot(Pr, s[0], s[1], eps, tail, final, minEdge);
     integrations++;
     if (shot.kind === 'failed') {
+      tailGrowth = TAIL_GROWTH;
       if (!good || ++retreats > 40) return { ok: false, s, integrations };
       s = [0.5 * (s[0] + good[0]), 0.5 * (s[1] + good[1])];
       error = Math.max(error, GUESS_ERROR);
       continue;
     }
     retreats = 0;
+    if (shot.kind === 'edge') reachedTail = Math.min(reachedTail, tail);
     const [[a, b], [c, d]] = shot.jacobian;
     const det = a * d - b * c;
     if (!(Math.abs(det) > 0) || !Number.isFinite(det)) return { ok: false, s, integrations };
@@ -424,7 +438,12 @@ function findRoot(Pr: number, guess: [number, number], minEdge: number): RootRes
     const change = Math.max(Math.abs(step[0] / s[0]), Math.abs(step[1] / s[1]));
     // (Only on an unchanged domain: a longer one moves the root by its own amount.)
     const curvature = newtonCurvature(change, tail === previousTail ? previousChange : NaN);
-    if (shot.kind === 'edge' && final && change <= ACCEPT_CHANGE && curvature * change * change <= 1e-14 && shot.steps) {
+    // Accepted when the correction is small enough, or (after a few full-precision shots) when
+    // it no longer shrinks because the shots' own noise sets it: then it leaves about change².
+    if (final && shot.kind === 'edge') finalShots++;
+    const settled = change <= ACCEPT_CHANGE && curvature * change * change <= 1e-14;
+    const atNoiseFloor = finalShots >= STALLED_FINAL_SHOTS && change <= NOISE_FLOOR_CHANGE;
+    if (shot.kind === 'edge' && final && (settled || atNoiseFloor) && shot.steps) {
       const trace = shot.steps.build(shot.edge, step);
       return { ok: true, s: [s[0] + step[0], s[1] + step[1]], shot, trace, integrations };
     }
