@@ -4,8 +4,12 @@
 import type { Migration } from 'kysely';
 import * as m0001 from './0001_initial.js';
 import * as m0002 from './0002_dashboard.js';
+import * as m0003 from './0003_security.js';
+import * as m0004 from './0004_point_summaries.js';
 
 export const migrations: Record<string, Migration> = {
   '0001_initial': m0001,
   '0002_dashboard': m0002,
+  '0003_security': m0003,
+  '0004_point_summaries': m0004,
 };

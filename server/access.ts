@@ -15,9 +15,12 @@ export interface RouteAccess {
 }
 
 export const ROUTES: readonly RouteAccess[] = [
+  { method: 'GET', path: '/api/health', access: 'public' },
   { method: 'POST', path: '/api/session', access: 'public', csrfExempt: true },
   { method: 'GET', path: '/api/session', access: 'signed-in' },
   { method: 'DELETE', path: '/api/session', access: 'signed-in' },
+  { method: 'GET', path: '/api/session/all', access: 'signed-in' },
+  { method: 'DELETE', path: '/api/session/others', access: 'signed-in' },
   { method: 'POST', path: '/api/password-reset', access: 'public', csrfExempt: true },
   { method: 'POST', path: '/api/password-reset/confirm', access: 'public', csrfExempt: true },
   { method: 'POST', path: '/api/invites/accept', access: 'public', csrfExempt: true },
@@ -35,7 +38,9 @@ export const ROUTES: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/runs/:id/results', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/chart', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/export', access: 'viewer' },
+  { method: 'GET', path: '/api/runs/:id/points/:point', access: 'viewer' },
   { method: 'POST', path: '/api/runs/:id/reference', access: 'lead' },
+  { method: 'POST', path: '/api/runs/:id/resume', access: 'researcher' },
   { method: 'GET', path: '/api/compare', access: 'viewer' },
 
   { method: 'GET', path: '/api/tokens', access: 'researcher' },
@@ -46,6 +51,7 @@ export const ROUTES: readonly RouteAccess[] = [
   { method: 'PATCH', path: '/api/users/:id', access: 'lead' },
   { method: 'GET', path: '/api/invites', access: 'lead' },
   { method: 'POST', path: '/api/invites', access: 'lead' },
+  { method: 'DELETE', path: '/api/invites/:id', access: 'lead' },
   { method: 'GET', path: '/api/outbox', access: 'lead' },
   { method: 'GET', path: '/api/audit', access: 'lead' },
 ];

@@ -1,12 +1,14 @@
 // Studies uploaded to the dashboard run here, in the server's process, with the same
-// runner as the CLI (its worker pool lives only as long as the run). shutdown() stops
-// scheduling batches, lets those in flight commit, and waits for every pool to close;
-// such a run ends `interrupted` and `filmsweep resume` can finish it.
+// runner as the CLI (its worker pool lives only as long as the run); so do runs a
+// researcher resumes from the run page. shutdown() stops scheduling batches, lets those in
+// flight commit, and waits for every pool to close; such a run ends `interrupted` and can
+// be resumed (`filmsweep resume`, or POST /api/runs/:id/resume). A run left `running` by
+// a server that was killed is marked `interrupted` at the next start (shared/db/reconcile.ts).
 import { getUser } from '../shared/db/users.js';
 import { ensureResultsCache } from '../shared/db/results-cache.js';
 import { setRunStartedBy } from '../shared/db/studies.js';
 import type { Store } from '../shared/db/store.js';
-import { runStudy, type PreparedStudy, type RunOutcome } from '../shared/runner/index.js';
+import { resumeRun, runStudy, type PreparedStudy, type RunOptions, type RunOutcome } from '../shared/runner/index.js';
 import { HttpError } from './http-error.js';
 import type { Mailer } from './mail.js';
 
@@ -25,8 +27,31 @@ export class BackgroundRuns {
     return this.running.size;
   }
 
+  /** Whether this server is computing the run now. */
+  has(runId: number): boolean {
+    return this.running.has(runId);
+  }
+
   /** Starts the run; resolves with its id once it exists in the database. */
   start(prepared: PreparedStudy, user: { id: number; email: string }, linkBase: string): Promise<number> {
+    return this.launch((options) => runStudy(this.store, prepared, options), user, linkBase, true);
+  }
+
+  /**
+   * Resumes an unfinished run (the runner's own checks: not done, not alive elsewhere, the
+   * same study and method versions); resolves with its id once it is claimed.
+   */
+  resume(runId: number, user: { id: number; email: string }, linkBase: string): Promise<number> {
+    if (this.running.has(runId)) throw new HttpError(409, `run ${runId} is already running on this server`);
+    return this.launch((options) => resumeRun(this.store, runId, options), user, linkBase, false);
+  }
+
+  private launch(
+    execute: (options: RunOptions) => Promise<RunOutcome>,
+    user: { id: number; email: string },
+    linkBase: string,
+    recordStarter: boolean,
+  ): Promise<number> {
     if (this.closing) throw new HttpError(503, 'the server is shutting down');
     if (this.running.size >= this.settings.maxConcurrent) {
       throw new HttpError(429, `${this.running.size} runs are in progress; try again when one has finished`);
@@ -34,13 +59,13 @@ export class BackgroundRuns {
     const stop = new AbortController();
     return new Promise<number>((resolveId, rejectId) => {
       let runId: number | undefined;
-      const done = runStudy(this.store, prepared, {
+      const done = execute({
         workers: this.settings.workers,
         stop: stop.signal,
         onStart: ({ runId: id }) => {
           runId = id;
           // An uploaded file has no folder: no git commit. Written synchronously, between batches.
-          setRunStartedBy(this.store, id, user.id, null).catch(this.log);
+          if (recordStarter) setRunStartedBy(this.store, id, user.id, null).catch(this.log);
           this.running.set(id, { stop, done });
           resolveId(id);
         },

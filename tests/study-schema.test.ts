@@ -41,6 +41,9 @@ function errors(schema: Schema, value: unknown, path = '$'): string[] {
       case 'maximum':
         if (typeof value === 'number' && value > (rule as number)) out.push(`${path}: above maximum`);
         break;
+      case 'maxItems':
+        if (Array.isArray(value) && value.length > (rule as number)) out.push(`${path}: too many items`);
+        break;
       case 'minItems':
         if (Array.isArray(value) && value.length < (rule as number)) out.push(`${path}: too few items`);
         break;
@@ -111,7 +114,12 @@ describe('JSON Schema of study files', () => {
       ['not a slug', { ...base, name: 'Glycol Tube' }],
       ['no configuration', { ...base, configuration: undefined }],
       ['bad design', { ...base, sweep: { ...base.sweep, design: 'random' } }],
-      ['range without count or step', { ...base, sweep: { over: { Re: { from: 1, to: 2 } } } }],
+      // A range without count or step is well formed (a latin hypercube's); parse.ts refuses it in other designs.
+      ['range without from', { ...base, sweep: { over: { Re: { to: 2, count: 3 } } } }],
+      ['target without within', { ...base, target: { output: 'Nu', value: 500, adjust: 'Re' } }],
+      ['target interval of three', { ...base, target: { output: 'Nu', value: 500, adjust: 'Re', within: [1, 2, 3] } }],
+      ['tolerance not a number or text', { ...base, tolerances: { Re: [1] } }],
+      ['uncertainty with too few samples', { ...base, uncertainty: { samples: 3 } }],
       ['count below 2', { ...base, sweep: { over: { Re: { from: 1, to: 2, count: 1 } } } }],
       ['bad tolerance', { ...base, checks: [{ ...base.checks[0], tolerance: '3 percent' }] }],
       ['negative baseline tolerance', { ...base, baseline: { tolerance: -1 } }],

@@ -21,7 +21,7 @@ export function register(program: Command) {
       const store = await openStore(resolveDbPath(opts.db), { create: false });
       try {
         const run = await resolveRunRef(store, ref);
-        const data = await getRunRows(store, run.id);
+        const data = await getRunRows(store, run.id, { recommended: true });
         const columns = opts.columns?.split(',').map((c) => c.trim()).filter(Boolean);
         const result = await exportRun(data, opts.format, { columns });
         if (opts.out) {

@@ -1,7 +1,7 @@
 // `filmsweep methods`: the catalogue — methods, inputs, ranges, uncertainty, sources.
 import type { Command } from 'commander';
 import { describeMethod, methods, methodsFor, requireConfiguration } from '../../shared/physics/catalogue.js';
-import { configurations } from '../../shared/physics/configurations.js';
+import { configurations, describeConfiguration } from '../../shared/physics/configurations.js';
 import type { ValidityRange } from '../../shared/physics/types.js';
 import { formatNumber, printJson } from '../format.js';
 
@@ -21,12 +21,16 @@ export function register(program: Command) {
       const list = opts.configuration ? (requireConfiguration(opts.configuration), methodsFor(opts.configuration)) : methods;
       const confs = configurations.filter((c) => !opts.configuration || c.id === opts.configuration);
       if (opts.json) {
-        printJson({ configurations: confs, methods: list.map(describeMethod) });
+        printJson({ configurations: confs.map(describeConfiguration), methods: list.map(describeMethod) });
         return;
       }
       const out: string[] = [];
       for (const c of confs) {
+        const d = describeConfiguration(c);
         out.push(`${c.id} — ${c.title}`, `  characteristic length: ${c.lengthNote}`);
+        if (c.conventions) out.push(`  convention: ${c.conventions}`);
+        out.push(`  dimensional inputs: ${[...d.dimensionalInputs, ...d.engineInputs].join(' ')}`);
+        out.push(`  engine outputs:     ${d.engineOutputs.join(' ')}`);
         for (const m of list.filter((x) => x.configuration === c.id)) {
           out.push(`  ${m.id}  (${m.kind}, v${m.version}) ${m.title}`);
           const inputs = m.inputs.map((i) => (i.required ? i.name : `[${i.name}]`)).join(' ');

@@ -1,7 +1,7 @@
 // `filmsweep run FILE…`: validate every file first (nothing is written when one is bad),
 // then sweep each across the worker pool into one run per file.
 import { InvalidArgumentError, type Command } from 'commander';
-import { closeStore, getRun, getRunSummary, openStore, resolveDbPath, type Store } from '../../shared/db/index.js';
+import { closeStore, getRecommendationCounts, getRun, getRunSummary, openStore, resolveDbPath, type Store } from '../../shared/db/index.js';
 import {
   captureInterrupts,
   defaultWorkers,
@@ -75,7 +75,7 @@ export async function sweepWithReporting(
       outcomes.push(outcome);
       if (!opts.json) {
         const run = (await getRun(store, outcome.id))!;
-        process.stdout.write(runReport(run, await getRunSummary(store, outcome.id), outcome.seconds));
+        process.stdout.write(runReport(run, await getRunSummary(store, outcome.id), outcome.seconds, await getRecommendationCounts(store, outcome.id)));
       }
     }
   } finally {

@@ -3,12 +3,14 @@
 import type { Command } from 'commander';
 import {
   closeStore,
+  getRecommendationCounts,
   getRunDetails,
   getRunSummary,
   openStore,
   resolveDbPath,
   resolveRunRef,
   type MethodSummary,
+  type RecommendationCounts,
   type RunInfo,
 } from '../../shared/db/index.js';
 import { formatNumber, printJson, table } from '../format.js';
@@ -23,10 +25,14 @@ export function statusText(status: string, stream: NodeJS.WriteStream = process.
   return useColor(stream) ? `\x1b[${STATUS_COLOR[status] ?? 0}m${status}\x1b[0m` : status;
 }
 
-/** The per-method table: points, flagged points, min/max Nu. */
-export function summaryTable(summary: MethodSummary[]): string {
-  return table(
-    ['method', 'version', 'points', 'flagged', 'Nu min', 'Nu max'],
+/**
+ * The per-method table: points, flagged points, min/max Nu, and (with per-point
+ * summaries) at how many points the method was the recommended one.
+ */
+export function summaryTable(summary: MethodSummary[], recommended?: RecommendationCounts): string {
+  const counted = recommended !== undefined && recommended.points > 0;
+  const body = table(
+    ['method', 'version', 'points', 'flagged', 'Nu min', 'Nu max', ...(counted ? ['recommended'] : [])],
     summary.map((m) => [
       m.method,
       m.version,
@@ -34,17 +40,21 @@ export function summaryTable(summary: MethodSummary[]): string {
       m.flagged_points,
       m.nu_min === null ? '' : `${formatNumber(m.nu_min, 5)}${m.nu_name === 'Nu_x' ? ' (Nu_x)' : ''}`,
       m.nu_max === null ? '' : `${formatNumber(m.nu_max, 5)}${m.nu_name === 'Nu_x' ? ' (Nu_x)' : ''}`,
+      ...(counted ? [recommended.byMethod[m.method] ?? 0] : []),
     ]),
   );
+  if (!counted || recommended.none === 0) return body;
+  return `${body}\nno-applicable-method: ${recommended.none} of ${recommended.points} points (no method's validity ranges hold there)`;
 }
 
+
 /** What `run` and `resume` print after a run: a status line and the summary table. */
-export function runReport(run: RunInfo, summary: MethodSummary[], seconds?: number): string {
+export function runReport(run: RunInfo, summary: MethodSummary[], seconds?: number, recommended?: RecommendationCounts): string {
   const time = seconds === undefined ? '' : ` in ${formatNumber(seconds, 3)} s`;
   return [
     `run ${run.id}  ${run.study} (version ${run.study_version})  ${statusText(run.status)}  ` +
       `${run.points_done}/${run.points_total} points, ${run.results_count} results, ${run.flagged_count} flagged${time}`,
-    summaryTable(summary),
+    summaryTable(summary, recommended),
     '',
   ].join('\n');
 }
@@ -55,15 +65,16 @@ export function register(program: Command) {
     .description("one run: study, status, timing, git commit, host, and per method the points, flagged points and Nu range")
     .argument('<run>', "run id, or 'latest'")
     .option('--db <file>', 'database file or postgres:// URL (default: $FILMSWEEP_DB or ./filmsweep.db)')
-    .option('--json', 'print JSON: {"run": {...}, "error": ..., "summary": [...]}')
+    .option('--json', 'print JSON: {"run": {...}, "error": ..., "summary": [...], "recommended": {"points", "byMethod": {method: points}, "none"}}')
     .action(async (ref: string, opts: { db?: string; json?: boolean }) => {
       const store = await openStore(resolveDbPath(opts.db), { create: false });
       try {
         const run = await resolveRunRef(store, ref);
         const details = (await getRunDetails(store, run.id))!;
         const summary = await getRunSummary(store, run.id);
+        const recommended = await getRecommendationCounts(store, run.id);
         if (opts.json) {
-          printJson({ run, error: details.error, summary });
+          printJson({ run, error: details.error, summary, recommended });
           return;
         }
         const lines = [
@@ -78,7 +89,7 @@ export function register(program: Command) {
           `  git commit     ${run.git_commit ?? '—'}`,
           `  host           ${run.host}${details.pid ? ` (pid ${details.pid})` : ''}, ${run.workers} worker${run.workers === 1 ? '' : 's'}`,
           '',
-          summaryTable(summary),
+          summaryTable(summary, recommended),
         ];
         process.stdout.write(`${lines.join('\n')}\n`);
       } finally {

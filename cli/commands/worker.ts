@@ -2,11 +2,13 @@
 // runs started with `run --queue` from the queue, computes them on its own worker
 // threads and writes them to the shared database. Start as many as there are machines;
 // SIGINT/SIGTERM finishes the jobs in hand first (a second signal quits at once, and
-// those jobs go back to the queue once their lock expires).
+// those jobs go back to the queue once their lock expires). At start it marks this host's
+// runs whose process died `interrupted` (shared/db/reconcile.ts), as `serve` does.
 import { InvalidArgumentError, type Command } from 'commander';
 import { closeStore, openStore, resolveDbPath } from '../../shared/db/index.js';
+import { reconcileAtStart } from '../../shared/db/reconcile.js';
 import { DEFAULT_LOCK_DURATION_MS, DEFAULT_MAX_STALLED, DEFAULT_STALLED_INTERVAL_MS } from '../../shared/queue/defaults.js';
-import { defaultWorkers } from '../../shared/runner/index.js';
+import { defaultWorkers, hostName, processAlive } from '../../shared/runner/index.js';
 import type { QueueWorkerHandle } from '../../shared/queue/index.js';
 import { EXIT } from '../errors.js';
 import { parseWholeNumber } from './run.js';
@@ -56,6 +58,9 @@ export function register(program: Command) {
       const workers = opts.workers ?? defaultWorkers();
       let handle: QueueWorkerHandle;
       try {
+        const { interrupted, removed } = await reconcileAtStart(store, 'worker', hostName(), processAlive);
+        if (interrupted.length) line(`runs ${interrupted.join(', ')} had lost their process on this host: marked interrupted (resume them)`);
+        if (removed.length) line(`unfinished pushes removed: run ${removed.join(', ')}`);
         handle = await startQueueWorker({
           target,
           store,

@@ -1,9 +1,12 @@
 // Every error becomes `{"error": {"message", "details"?}}` with its status: our
 // HttpError; bad input from the physics, study and store layers (400, study diagnostics
-// in details); multer's and the body parser's limits (413); anything else is a 500 whose
-// detail goes to the log, not to the caller.
+// in details); multer's and the body parser's limits (413); a full password-hashing queue
+// (503, Retry-After); anything else is a 500 whose detail goes to the log, not to the
+// caller. A request refused before its body was read gets `Connection: close`, so the
+// client stops sending it rather than the server reading it only to throw it away.
 import type { NextFunction, Request, Response } from 'express';
 import multer from 'multer';
+import { PasswordHashingBusyError } from '../../shared/db/password-hashing.js';
 import { FluidRangeError } from '../../shared/physics/fluids/types.js';
 import { InputError } from '../../shared/physics/types.js';
 import { StudyError } from '../../shared/study/errors.js';
@@ -15,10 +18,15 @@ export function errorBody(message: string, details?: unknown) {
 }
 
 export function handleErrors(log: (e: unknown) => void) {
-  return (err: unknown, _req: Request, res: Response, next: NextFunction) => {
+  return (err: unknown, req: Request, res: Response, next: NextFunction) => {
     if (res.headersSent) return next(err);
+    if (!req.complete) res.setHeader('Connection', 'close');
     const send = (status: number, message: string, details?: unknown) => res.status(status).json(errorBody(message, details));
     if (err instanceof HttpError) return send(err.status, err.message, err.details);
+    if (err instanceof PasswordHashingBusyError) {
+      res.setHeader('Retry-After', '5');
+      return send(503, err.message);
+    }
     if (err instanceof StudyError) return send(400, 'invalid study file (nothing was run)', { diagnostics: err.diagnostics });
     if (err instanceof InputError || err instanceof UnitError || err instanceof FluidRangeError) return send(400, err.message);
     if (err instanceof multer.MulterError) {

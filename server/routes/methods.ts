@@ -2,14 +2,14 @@
 import { Router } from 'express';
 import { z } from 'zod';
 import { describeMethod, methods } from '../../shared/physics/catalogue.js';
-import { configurations } from '../../shared/physics/configurations.js';
+import { configurations, describeConfiguration } from '../../shared/physics/configurations.js';
 import { parse } from '../middleware/validate.js';
 
 export function methodsRouter(): Router {
   const r = Router();
   r.get('/', (req, res) => {
     parse(z.object({}).strict(), req.query, 'query');
-    res.json({ configurations, methods: methods.map(describeMethod) });
+    res.json({ configurations: configurations.map(describeConfiguration), methods: methods.map(describeMethod) });
   });
   return r;
 }

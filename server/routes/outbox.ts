@@ -1,7 +1,8 @@
-// The local mail outbox (lead, development mode only) and the audit log (lead).
+// The local mail outbox (lead, and only when the server runs with --dev: it holds live
+// reset and invite links; every read is audited) and the audit log (lead).
 import { Router } from 'express';
 import { z } from 'zod';
-import { AUDIT_ACTIONS, listAudit } from '../../shared/db/audit.js';
+import { AUDIT_ACTIONS, listAudit, recordAudit } from '../../shared/db/audit.js';
 import { listMail } from '../../shared/db/outbox.js';
 import type { AppContext } from '../context.js';
 import { HttpError } from '../http-error.js';
@@ -12,7 +13,9 @@ export function outboxRouter(ctx: AppContext): Router {
   r.get('/', async (req, res) => {
     if (!ctx.options.dev) throw new HttpError(404, 'the mail outbox is shown only in development mode (serve --dev)');
     parse(z.object({}).strict(), req.query, 'query');
-    res.json({ messages: await listMail(ctx.store) });
+    const messages = await listMail(ctx.store);
+    await recordAudit(ctx.store, { user: req.auth!.user, action: 'outbox-read', detail: { messages: messages.length, newest: messages[0]?.id ?? null }, ip: req.ip });
+    res.json({ messages });
   });
   return r;
 }

@@ -1,19 +1,24 @@
-// Runs: list, one run, its results (paged, sorted, filtered), chart data, exports, the
-// reference mark, and runs pushed from elsewhere (`filmsweep push`, CI).
+// Runs: list, one run, its results (paged, sorted, filtered), chart data, exports
+// (streamed from the database: see shared/export/stream.ts), the reference mark, runs
+// pushed from elsewhere (`filmsweep push`, CI), and resuming an interrupted run.
 import { Router } from 'express';
 import { z } from 'zod';
 import { recordAudit } from '../../shared/db/audit.js';
-import { getRunDetails, getRunRows, getRunSummary, RUN_STATUSES } from '../../shared/db/index.js';
+import { getRun, getRunDetails, getRunSource, getRunSummary, resumeRefusal, RUN_STATUSES } from '../../shared/db/index.js';
 import { getMeasurement } from '../../shared/db/measurements.js';
 import { NAME_PATTERN } from '../../shared/db/results-cache.js';
 import { chartData, getRunColumns, MAX_PAGE_SIZE, queryResults, type RangeFilter } from '../../shared/db/results-query.js';
 import { getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
-import { exportFormats, exportRun } from '../../shared/export/index.js';
+import { runRowSource } from '../../shared/db/run-rows.js';
+import { exportFormats, makeUnitLookup, mediaTypes, OutputClosedError, runMethodSpecs, writeRunExport, xlsxTooLong, type ExportFormat } from '../../shared/export/index.js';
+import { InputError } from '../../shared/physics/types.js';
+import { processAlive } from '../../shared/runner/index.js';
 import type { AppContext } from '../context.js';
 import { HttpError, notFound } from '../http-error.js';
 import { parse } from '../middleware/validate.js';
 import { measuredOverlay } from '../overlay.js';
 import { pushRun, pushSchema } from '../push.js';
+import { linkBase } from './links.js';
 import { idParams } from './users.js';
 
 const name = z.string().regex(NAME_PATTERN, 'expected an input or output name');
@@ -90,7 +95,7 @@ export function runsRouter(ctx: AppContext): Router {
   r.post('/push', async (req, res) => {
     const body = parse(pushSchema, req.body, 'body');
     const user = req.auth!.user;
-    const run = await pushRun(ctx.store, body, user.id);
+    const run = await pushRun(ctx.store, body, user.id, ctx.options.maxPoints);
     await recordAudit(ctx.store, { user, action: 'run-pushed', detail: { run: run.id, study: run.study, rows: body.rows.length, from_host: body.run.host }, ip: req.ip });
     res.status(201).json({ run });
   });
@@ -127,14 +132,55 @@ export function runsRouter(ctx: AppContext): Router {
 
   r.get('/:id/export', async (req, res) => {
     const { id } = parse(idParams, req.params, 'params');
-    const { format } = parse(z.object({ format: z.enum(exportFormats as [string, ...string[]]).default('csv') }).strict(), req.query, 'query');
-    if (!(await getDashboardRun(ctx.store, id))) throw notFound(`run ${id}`);
-    const data = await getRunRows(ctx.store, id);
-    const file = await exportRun(data, format as (typeof exportFormats)[number]);
-    await recordAudit(ctx.store, { user: req.auth!.user, action: 'export', detail: { run: id, format }, ip: req.ip });
-    res.setHeader('Content-Type', file.mediaType);
-    res.attachment(`run-${id}.${file.extension}`);
-    res.send(file.body);
+    const { format } = parse(z.object({ format: z.enum(exportFormats as [ExportFormat, ...ExportFormat[]]).default('csv') }).strict(), req.query, 'query');
+    const run = await getRun(ctx.store, id);
+    if (!run) throw notFound(`run ${id}`);
+    // The one size limit an export has: a worksheet's rows. Refused before a byte is sent.
+    const tooLong = format === 'xlsx' ? xlsxTooLong(run, run.results_count) : undefined;
+    if (tooLong) throw new HttpError(422, tooLong);
+    const user = req.auth!.user;
+    const release = ctx.exports.take(user.id);
+    try {
+      await recordAudit(ctx.store, { user, action: 'export', detail: { run: id, format }, ip: req.ip });
+      res.setHeader('Content-Type', mediaTypes[format]);
+      res.attachment(`run-${id}.${format}`);
+      await writeRunExport(run, runRowSource(ctx.store, id, { recommended: true }), format, res, makeUnitLookup(runMethodSpecs({ run })));
+    } catch (e) {
+      if (!res.headersSent) {
+        // Nothing sent yet: an ordinary JSON error, not one labelled as the file.
+        res.removeHeader('Content-Type');
+        res.removeHeader('Content-Disposition');
+        throw e;
+      }
+      // Once the file has started, the only way to say it failed is to cut it short.
+      if (!(e instanceof OutputClosedError)) ctx.options.log(e);
+      res.destroy();
+    } finally {
+      release();
+    }
+  });
+
+  r.post('/:id/resume', async (req, res) => {
+    const { id } = parse(idParams, req.params, 'params');
+    parse(z.object({}).strict(), req.body ?? {}, 'body');
+    const source = await getRunSource(ctx.store, id);
+    if (!source) throw notFound(`run ${id}`);
+    const [row] = await ctx.store.db.selectFrom('runs').select(['pushed_from']).where('id', '=', id).execute();
+    if (row.pushed_from !== null) {
+      throw new HttpError(409, `run ${id} was pushed from ${row.pushed_from}; resume it there with \`filmsweep resume\` and push it again`);
+    }
+    const refusal = resumeRefusal(id, source, processAlive) ?? (ctx.background.has(id) ? `run ${id} is already running on this server` : undefined);
+    if (refusal) throw new HttpError(409, refusal);
+    const user = req.auth!.user;
+    try {
+      await ctx.background.resume(id, user, linkBase(ctx, req));
+    } catch (e) {
+      // The runner's own refusals (claimed meanwhile, the study or a method changed since).
+      if (e instanceof InputError) throw new HttpError(409, e.message);
+      throw e;
+    }
+    await recordAudit(ctx.store, { user, action: 'run-resumed', detail: { run: id, was: source.status }, ip: req.ip });
+    res.status(202).json({ run: await getDashboardRun(ctx.store, id) });
   });
 
   r.post('/:id/reference', async (req, res) => {

@@ -1,8 +1,10 @@
-// Sign-in and sign-out; the session cookie and its CSRF token.
+// Sign-in and sign-out; the session cookie and its CSRF token; a user's own sessions:
+// `GET /api/session/all` lists them (when and where each was opened, which one is this),
+// `DELETE /api/session/others` ends every one but the current.
 import { Router, type Request, type Response } from 'express';
 import { z } from 'zod';
 import { recordAudit } from '../../shared/db/audit.js';
-import { createSession, deleteSession } from '../../shared/db/sessions.js';
+import { createSession, deleteOtherSessions, deleteSession, listUserSessions } from '../../shared/db/sessions.js';
 import { verifyCredentials, type User } from '../../shared/db/users.js';
 import type { AppContext } from '../context.js';
 import { HttpError } from '../http-error.js';
@@ -16,7 +18,7 @@ export const publicUser = (u: User) => ({ email: u.email, role: u.role, name: u.
 
 /** Opens a session for the user, sets the cookie and answers like POST /api/session. */
 export async function signIn(ctx: AppContext, req: Request, res: Response, user: User, status = 200) {
-  const session = await createSession(ctx.store, user.id, ctx.options.sessionTtlMs);
+  const session = await createSession(ctx.store, user.id, ctx.options.sessionTtlMs, { ip: req.ip, userAgent: req.get('user-agent') });
   res.cookie(SESSION_COOKIE, session.secret, {
     httpOnly: true,
     sameSite: 'lax',
@@ -30,7 +32,7 @@ export async function signIn(ctx: AppContext, req: Request, res: Response, user:
 
 export function sessionRouter(ctx: AppContext): Router {
   const r = Router();
-  r.post('/', loginRateLimit(ctx.options.loginLimit), async (req, res) => {
+  r.post('/', ...loginRateLimit(ctx.options.loginLimit), async (req, res) => {
     const body = parse(credentials, req.body, 'body');
     const user = await verifyCredentials(ctx.store, body.email, body.password);
     if (!user) {
@@ -52,6 +54,18 @@ export function sessionRouter(ctx: AppContext): Router {
     await recordAudit(ctx.store, { user: auth.user, action: 'sign-out', ip: req.ip });
     res.clearCookie(SESSION_COOKIE, { path: '/', httpOnly: true, sameSite: 'lax', secure: req.secure });
     res.status(204).end();
+  });
+  r.get('/all', async (req, res) => {
+    parse(z.object({}).strict(), req.query, 'query');
+    const auth = req.auth!;
+    res.json({ sessions: await listUserSessions(ctx.store, auth.user.id, auth.session?.id) });
+  });
+  r.delete('/others', async (req, res) => {
+    const auth = req.auth!;
+    if (auth.via !== 'session') throw new HttpError(400, 'an API token has no session to keep; sign in with the browser to end your other sessions');
+    const ended = await deleteOtherSessions(ctx.store, auth.user.id, auth.session!.id);
+    await recordAudit(ctx.store, { user: auth.user, action: 'sessions-ended', detail: { ended, by: 'user' }, ip: req.ip });
+    res.json({ ended });
   });
   return r;
 }

@@ -1,5 +1,7 @@
 // The audit log: who did what and when (sign-ins and their failures, uploads, runs
-// started, role changes, invites, tokens, exports). Append-only.
+// started and resumed, role changes, invites and their revocation, tokens, exports, reads
+// of the mail outbox, failed reset and invite confirmations, requests refused for their
+// role (403) or CSRF token, sessions ended). Append-only.
 import type { Store } from './store.js';
 
 export const AUDIT_ACTIONS = [
@@ -21,6 +23,17 @@ export const AUDIT_ACTIONS = [
   'token-made',
   'token-revoked',
   'export',
+  // 0003_security (issue 10)
+  'outbox-read',
+  'password-reset-failed',
+  'password-reset-throttled',
+  'invite-accept-failed',
+  'invite-revoked',
+  'access-refused',
+  'csrf-refused',
+  'sessions-ended',
+  'run-resumed',
+  'runs-reconciled',
 ] as const;
 export type AuditAction = (typeof AUDIT_ACTIONS)[number];
 

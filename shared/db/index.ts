@@ -43,4 +43,5 @@ export * from './measurements.js';
 export * from './studies.js';
 export * from './results-cache.js';
 export * from './results-query.js';
+export * from './point-summaries.js';
 export { newSecret, hashSecret } from './secrets.js';

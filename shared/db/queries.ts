@@ -1,12 +1,13 @@
 // Reading runs back: used by the CLI (list, show, export) and the dashboard server.
 import { sql } from 'kysely';
-import type { ResultRow } from '../physics/engine.js';
 import { InputError, type Inputs, type Outputs } from '../physics/types.js';
 import type { MethodVersion } from './runs.js';
 import type { RunStatus } from './schema.js';
 import { jsonNumberSql, jsonTextSql } from './dialect.js';
 import type { Store } from './store.js';
 import type { RunInfo } from '../export/run-info.js';
+import type { ExportRow } from '../export/types.js';
+import { getRecommendedByPoint } from './point-summaries.js';
 
 /** A run as exports and the API show it (one definition, shared with the web app). */
 export type { RunInfo };
@@ -122,8 +123,12 @@ export async function resolveRunRef(store: Store, ref: string | number): Promise
   return run;
 }
 
-/** Every result of a run, in point order then method order. */
-export async function getRunRows(store: Store, runId: number): Promise<{ run: RunInfo; rows: ResultRow[] }> {
+/**
+ * Every result of a run, in point order then method order. With `recommended` (the
+ * exports), each row also says whether its method is the point's recommended one, where
+ * the run has per-point summaries (migrations/0004_point_summaries.ts).
+ */
+export async function getRunRows(store: Store, runId: number, options: { recommended?: boolean } = {}): Promise<{ run: RunInfo; rows: ExportRow[] }> {
   const run = await getRun(store, runId);
   if (!run) throw new InputError(`no run ${runId} in this database`);
   const raw = await store.db
@@ -136,7 +141,8 @@ export async function getRunRows(store: Store, runId: number): Promise<{ run: Ru
     .orderBy('r.point_idx')
     .orderBy('r.method_idx')
     .execute();
-  const rows: ResultRow[] = [];
+  const rows: ExportRow[] = [];
+  const recommended = options.recommended ? await getRecommendedByPoint(store, runId) : undefined;
   let lastPoint = -1;
   let inputs: Inputs = {};
   for (const r of raw) {
@@ -145,7 +151,10 @@ export async function getRunRows(store: Store, runId: number): Promise<{ run: Ru
       inputs = JSON.parse(r.inputs) as Inputs;
       lastPoint = r.point_idx;
     }
-    rows.push({ method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] });
+    const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
+    const best = recommended?.get(r.point_idx);
+    if (best !== undefined) row.recommended = best === r.method;
+    rows.push(row);
   }
   return { run, rows };
 }

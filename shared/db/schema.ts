@@ -46,6 +46,8 @@ export interface RunsTable {
   reference: Generated<number>;
   /** 0002_dashboard: users.id of who started it from the dashboard or pushed it; null from the CLI. */
   started_by: number | null;
+  /** 0003_security: the host a pushed run came from; null for runs computed in this database. */
+  pushed_from: Generated<string | null>;
 }
 
 export interface PointsTable {
@@ -85,6 +87,7 @@ export interface Database {
   mail_outbox: MailOutboxTable;
   audit_log: AuditLogTable;
   result_caches: ResultCachesTable;
+  point_summaries: PointSummariesTable;
 }
 
 export type RunRow = Selectable<RunsTable>;
@@ -114,6 +117,9 @@ export interface SessionsTable {
   csrf_token: string;
   created_at: string;
   expires_at: string;
+  /** 0003_security: client address and browser at sign-in, for the user's list of sessions. */
+  ip: Generated<string | null>;
+  user_agent: Generated<string | null>;
 }
 
 export interface ApiTokensTable {
@@ -135,6 +141,9 @@ export interface InvitesTable {
   created_at: string;
   expires_at: string;
   accepted_at: string | null;
+  /** 0003_security: set when a lead revoked the invite (it can no longer be accepted). */
+  revoked_at: Generated<string | null>;
+  revoked_by: Generated<number | null>;
 }
 
 export interface PasswordResetsTable {
@@ -190,4 +199,15 @@ export interface ResultCachesTable {
   /** JSON `{inputs: [names], outputs: [names]}`; column i_<k> / o_<k> holds name k. */
   columns: string;
   built_at: string;
+}
+
+/** migrations/0004_point_summaries.ts: design summaries, one row per run of consecutive points (shared/design/stored-summaries.ts). */
+export interface PointSummariesTable {
+  run_id: number;
+  first_idx: number;
+  end_idx: number;
+  /** JSON columns of the range's summaries. */
+  facts: string;
+  /** JSON `{"<method index>": points, "none": points}`. */
+  counts: string;
 }

@@ -1,6 +1,7 @@
 // API tokens for CI and `filmsweep push`: random, shown once when made, stored as sha256.
 // A token acts as its owner, with the owner's current role; it stops working when revoked
-// or when the owner is disabled.
+// or when the owner is disabled, and every token of a user is deleted when their password
+// is reset.
 import { hashSecret, newSecret } from './secrets.js';
 import type { Store } from './store.js';
 import type { User } from './users.js';
@@ -38,6 +39,12 @@ export async function listTokens(store: Store, userId: number): Promise<ApiToken
 export async function revokeToken(store: Store, userId: number, id: number): Promise<boolean> {
   const r = await store.db.deleteFrom('api_tokens').where('id', '=', id).where('user_id', '=', userId).executeTakeFirst();
   return Number(r.numDeletedRows) > 0;
+}
+
+/** Deletes every token of the user (a password reset does); the number deleted. */
+export async function revokeAllTokens(store: Store, userId: number): Promise<number> {
+  const r = await store.db.deleteFrom('api_tokens').where('user_id', '=', userId).executeTakeFirst();
+  return Number(r.numDeletedRows);
 }
 
 /** The enabled owner of a token (and the token's id), marking it used; undefined otherwise. */

@@ -1,6 +1,6 @@
 // Dashboard accounts: e-mail (lower-case, unique), name, role, bcrypt password hash.
 // Accounts are disabled, never deleted, so the runs and audit entries that name them stay whole.
-import bcrypt from 'bcryptjs';
+import { bcryptCompare, bcryptHash } from './password-hashing.js';
 import type { Role } from './schema.js';
 import type { Store } from './store.js';
 
@@ -34,7 +34,7 @@ const toUser = (r: UserRow): User => ({ id: r.id, email: r.email, name: r.name, 
 const columns = ['id', 'email', 'name', 'role', 'disabled', 'created_at'] as const;
 
 export function hashPassword(password: string, cost = DEFAULT_BCRYPT_COST): Promise<string> {
-  return bcrypt.hash(password, cost);
+  return bcryptHash(password, cost);
 }
 
 export interface NewUser {
@@ -86,7 +86,7 @@ export async function verifyCredentials(store: Store, email: string, password: s
     .where('email', '=', normalizeEmail(email))
     .executeTakeFirst();
   // Compare against a fixed hash when there is no such user, so both refusals take as long.
-  const ok = await bcrypt.compare(password, row?.password_hash ?? UNKNOWN_USER_HASH);
+  const ok = await bcryptCompare(password, row?.password_hash ?? UNKNOWN_USER_HASH);
   if (!row || !ok || row.disabled) return undefined;
   return toUser(row);
 }

@@ -1,5 +1,7 @@
-// One entry point for every export format. Units come from the catalogue's specs of the
-// run's methods (a method since removed from the catalogue falls back to the local table).
+// One entry point for every export format: exportRun for rows in memory (the CLI), and
+// writeRunExport (stream.ts) for rows read from the database in slices (the dashboard).
+// Units come from the catalogue's specs of the run's methods (a method since removed from
+// the catalogue falls back to the local table).
 import { getMethod } from '../physics/catalogue.js';
 import { InputError, type MethodInfo } from '../physics/types.js';
 import { toCsv } from './csv.js';
@@ -21,7 +23,8 @@ export { roundSignificant } from './significant.js';
 export { resultColumns, plainHeader, type Column } from './table.js';
 export * from './types.js';
 export { derivedUnits, displayUnit, makeUnitLookup, type UnitLookup } from './units.js';
-export { toXlsx } from './xlsx.js';
+export { maxXlsxRows, toXlsx, writeXlsx, xlsxTooLong } from './xlsx.js';
+export { writeRunExport, rowsOf, OutputClosedError, type RowSource, type RowEncoder } from './stream.js';
 
 export interface ExportOptions extends LatexOptions {
   /** Override the unit source (tests, or callers that already hold the method specs). */
@@ -29,9 +32,9 @@ export interface ExportOptions extends LatexOptions {
 }
 
 /** The method specs of a run, from the catalogue; unknown ids are skipped. */
-export function runMethodSpecs(data: RunExport): MethodInfo[] {
+export function runMethodSpecs(data: Pick<RunExport, 'run'> & { rows?: RunExport['rows'] }): MethodInfo[] {
   const specs: MethodInfo[] = [];
-  const ids = new Set([...data.run.methods.map((m) => m.id), ...data.rows.map((r) => r.method)]);
+  const ids = new Set([...data.run.methods.map((m) => m.id), ...(data.rows ?? []).map((r) => r.method)]);
   for (const id of ids) {
     try {
       specs.push(getMethod(data.run.configuration, id));
@@ -42,7 +45,7 @@ export function runMethodSpecs(data: RunExport): MethodInfo[] {
   return specs;
 }
 
-const mediaTypes: Record<ExportFormat, string> = {
+export const mediaTypes: Record<ExportFormat, string> = {
   csv: 'text/csv; charset=utf-8; header=present',
   json: 'application/json',
   md: 'text/markdown; charset=utf-8',

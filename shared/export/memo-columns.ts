@@ -3,9 +3,9 @@
 // when the engine derived them, Nu, Nu_x, h, h_x) and the flags. Inputs that never change
 // are listed once above the table; every other column is named as left out (the CSV,
 // JSON and XLSX exports carry everything). `columns` picks the columns by name instead.
-import type { ResultRow } from '../physics/engine.js';
+import type { ExportRow } from './types.js';
 import { InputError } from '../physics/types.js';
-import { resultColumns, type Column } from './table.js';
+import { ColumnCollector, type Column } from './table.js';
 import type { UnitLookup } from './units.js';
 
 export const mainOutputs: readonly string[] = ['Re', 'Ra', 'Nu', 'Nu_x', 'h', 'h_x'];
@@ -18,12 +18,13 @@ export interface MemoColumns {
   leftOut: string[];
 }
 
-function sameValue(a: unknown, b: unknown): boolean {
-  return a === b || (typeof a === 'number' && typeof b === 'number' && Object.is(a, b));
+export function memoColumns(rows: readonly ExportRow[], unitOf: UnitLookup, columns?: readonly string[]): MemoColumns {
+  return memoColumnsOf(new ColumnCollector().add(rows), unitOf, columns);
 }
 
-export function memoColumns(rows: readonly ResultRow[], unitOf: UnitLookup, columns?: readonly string[]): MemoColumns {
-  const all = resultColumns(rows, unitOf);
+/** The same choice from a collector that has seen every row (streamed exports). */
+export function memoColumnsOf(seen: ColumnCollector, unitOf: UnitLookup, columns?: readonly string[]): MemoColumns {
+  const all = seen.columns(unitOf);
   if (columns?.length) {
     const shown = columns.map((name) => {
       const c = all.find((x) => x.label === name) ?? all.find((x) => x.name === name);
@@ -37,12 +38,11 @@ export function memoColumns(rows: readonly ResultRow[], unitOf: UnitLookup, colu
   const leftOut: string[] = [];
   const inputNames = new Set(all.filter((c) => c.kind === 'input').map((c) => c.name));
   for (const c of all) {
-    if (c.kind === 'method' || c.kind === 'flags') {
+    if (c.kind === 'method' || c.kind === 'flags' || c.kind === 'recommended') {
       shown.push(c);
     } else if (c.kind === 'input') {
-      const values = rows.map((r) => r.inputs[c.name]);
-      const constant = values.every((v) => sameValue(v, values[0]));
-      if (constant && values[0] !== undefined) fixed.push({ column: c, value: values[0] });
+      const value = seen.constantInput(c.name);
+      if (value !== undefined) fixed.push({ column: c, value });
       else shown.push(c);
     } else if (mainOutputs.includes(c.name) && !inputNames.has(c.name)) {
       shown.push(c);

@@ -7,9 +7,15 @@ export type { ResultRow };
 export type { MethodVersion, RunInfo, RunStatus } from './run-info.js';
 import type { RunInfo } from './run-info.js';
 
+/** A stored result row; `recommended` where the run has per-point summaries (shared/design). */
+export interface ExportRow extends ResultRow {
+  /** Whether this row's method is the recommended one at its point. */
+  recommended?: boolean;
+}
+
 export interface RunExport {
   run: RunInfo;
-  rows: ResultRow[];
+  rows: ExportRow[];
 }
 
 export type ExportFormat = 'csv' | 'json' | 'md' | 'tex' | 'xlsx';

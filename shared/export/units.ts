@@ -1,21 +1,12 @@
 // Which SI unit each input and output name carries, for export headers. The method's own
 // InputSpec/OutputSpec wins; then the dimensional quantities a study may give; then the
 // quantities the dimensional engine derives itself (engine.ts), which no method declares.
-import { dimensionalQuantities } from '../physics/quantities.js';
+import { dimensionalQuantities, engineInputSpecs, engineOutputSpecs } from '../physics/quantities.js';
 import type { MethodInfo } from '../physics/types.js';
 
 /** Units of what engine.ts adds to a method's outputs, and of the usual dimensionless groups. */
 export const derivedUnits: Readonly<Record<string, string>> = {
-  h: 'W/(m^2·K)',
-  h_x: 'W/(m^2·K)',
-  q: 'W/m^2',
-  heat_rate: 'W',
-  pressure_drop: 'Pa',
-  property_temperature: 'K',
-  surface_temperature: 'K',
-  adiabatic_wall_temperature: 'K',
-  velocity: 'm/s',
-  delta99: 'm',
+  ...Object.fromEntries([...engineOutputSpecs, ...engineInputSpecs].map((s) => [s.name, s.unit])),
   Re: '1',
   Pr: '1',
   Pr_s: '1',
@@ -32,7 +23,19 @@ export const derivedUnits: Readonly<Record<string, string>> = {
   recovery_factor: '1',
   delta99_x: '1',
   pressure_drop_coefficient: '1',
+  // Internal-flow energy balance (issue 9): named here so targets and bands can use them.
+  outlet_temperature: 'K',
+  mean_bulk_temperature: 'K',
+  surface_temperature_outlet: 'K',
+  log_mean_temperature_difference: 'K',
+  mass_flow: 'kg/s',
 };
+
+/**
+ * Suffixes the design layer (shared/design/names.ts) appends to a name: band ends and
+ * the achievable range of a target out of reach. They carry the unit of the name itself.
+ */
+const SAME_UNIT_SUFFIXES = ['_low', '_high', '_min', '_max'];
 
 /** SI unit of a name (`1` for dimensionless), or undefined when nothing declares it. */
 export type UnitLookup = (name: string) => string | undefined;
@@ -48,7 +51,13 @@ export function makeUnitLookup(methods: readonly Pick<MethodInfo, 'inputs' | 'ou
       if (!declared.has(spec.name)) declared.set(spec.name, spec.unit);
     }
   }
-  return (name) => declared.get(name) ?? table.get(name);
+  const direct = (name: string) => declared.get(name) ?? table.get(name);
+  return (name) => {
+    const unit = direct(name);
+    if (unit !== undefined) return unit;
+    const suffix = SAME_UNIT_SUFFIXES.find((s) => name.endsWith(s));
+    return suffix ? direct(name.slice(0, -suffix.length)) : undefined;
+  };
 }
 
 /** The unit as headers show it: `-` for dimensionless. */

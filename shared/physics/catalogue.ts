@@ -12,6 +12,14 @@ import {
   horizontalCylinderMethods,
   sphereFreeMethods,
 } from './correlations/free-convection.js';
+import { annulusMethods } from './correlations/annulus.js';
+import { parallelPlatesMethods } from './correlations/parallel-plates.js';
+import { liquidMetalPipeMethods } from './correlations/pipe-liquid-metal.js';
+import { verticalChannelMethods } from './correlations/vertical-channel.js';
+import { plateFinHeatSinkMethods } from './correlations/plate-fin-heat-sink.js';
+import { enclosureMethods } from './correlations/enclosure.js';
+import { inclinedPlateMethods } from './correlations/inclined-plate.js';
+import { impingingJetMethods } from './correlations/impinging-jet.js';
 import { similarityMethods } from './similarity/index.js';
 import { InputError, type Method, type MethodInfo } from './types.js';
 
@@ -27,6 +35,14 @@ export const methods: Method[] = [
   ...horizontalPlateMethods,
   ...horizontalCylinderMethods,
   ...sphereFreeMethods,
+  ...liquidMetalPipeMethods,
+  ...annulusMethods,
+  ...parallelPlatesMethods,
+  ...verticalChannelMethods,
+  ...plateFinHeatSinkMethods,
+  ...enclosureMethods,
+  ...inclinedPlateMethods,
+  ...impingingJetMethods,
 ];
 
 const byKey = new Map(methods.map((m) => [`${m.configuration}/${m.id}`, m]));

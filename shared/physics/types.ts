@@ -75,7 +75,18 @@ export interface MethodInfo {
   source: string;
   /** Bumped whenever the implementation changes results; stored with every run. */
   version: number;
+  /**
+   * The wall conditions the method's Nu holds for: 'temperature' (uniform wall temperature),
+   * 'flux' (uniform heat flux). Omitted: both (turbulent internal flow, cross flow, free
+   * convection correlations, where the literature uses one form for both). A method with a
+   * `wall_condition` input covers the conditions of its choices. The engine flags a
+   * dimensional point whose wall condition the method lacks (`no-flux-form`,
+   * `no-temperature-form`), never silently giving the other condition's value.
+   */
+  wallConditions?: readonly WallCondition[];
 }
+
+export type WallCondition = 'temperature' | 'flux';
 
 export interface Method extends MethodInfo {
   evaluate(inputs: Inputs): MethodResult;

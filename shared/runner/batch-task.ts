@@ -1,6 +1,7 @@
 // What passes between the runner and its worker threads: the data each worker starts
 // with, one batch's task, and the computed batch it sends back.
-import type { EncodedBatch } from '../db/batch-writer.js';
+import type { SummarizedBatch } from '../db/point-summaries.js';
+import type { DesignSpec } from '../design/types.js';
 import type { SolvePlan } from '../physics/engine.js';
 import type { SweepSource } from '../study/sweep.js';
 
@@ -10,6 +11,8 @@ export interface WorkerData {
   plan: SolvePlan;
   /** Method ids in the order the run stores them; the solver must return this order. */
   methodIds: string[];
+  /** The study's design answers (target, tolerances, bands), if it asks for any. */
+  design?: DesignSpec;
 }
 
 export interface BatchTask {
@@ -32,7 +35,7 @@ export function toRanges(indices: readonly number[]): number[] {
   return ranges;
 }
 
-/** A computed batch and how long the computing took (for the adaptive batch size). */
-export interface ComputedBatch extends EncodedBatch {
+/** A computed batch with each point's design summary, and how long the computing took (for the adaptive batch size). */
+export interface ComputedBatch extends SummarizedBatch {
   computeMs: number;
 }

@@ -21,7 +21,9 @@ import {
   type MethodVersion,
   type RunStatus,
   type Store,
+  withPointSummaries,
 } from '../db/index.js';
+import type { WorkerData } from './batch-task.js';
 import { BatchSizer } from './batches.js';
 import { gitCommit, hostName, processAlive } from './environment.js';
 import { createPool } from './pool.js';
@@ -101,8 +103,30 @@ export function prepareStudy(loaded: LoadedStudy): PreparedStudy {
   const solve = compileSolver(plan, { strict: false });
   const methods = methodVersions(plan);
   const total = countPoints(study);
-  if (total > 0) solve(pointAt(study, 0));
+  if (total > 0) {
+    const first = pointAt(study, 0);
+    const target = study.design?.target;
+    if (!target) solve(first);
+    else {
+      // A target whose output no method gives (e.g. outlet_temperature outside internal
+      // flow) would flag every point: say so before the run starts.
+      const [lo, hi] = target.within;
+      const probe = lo > 0 ? Math.sqrt(lo * hi) : (lo + hi) / 2;
+      const rows = solve({ ...first, [target.adjust]: probe });
+      if (!rows.some((r) => r.outputs[target.output] !== undefined)) {
+        throw new InputError(
+          `${loaded.file}: target output '${target.output}' is given by none of the methods at the first point (${target.adjust} = ${probe}); they give ${[...new Set(rows.flatMap((r) => Object.keys(r.outputs)))].join(', ') || 'nothing (see their flags)'}`,
+        );
+      }
+    }
+  }
   return { loaded, plan, methods, total };
+}
+
+/** What every worker thread of a run starts with (local pool and queue workers alike). */
+export function workerDataOf(prepared: PreparedStudy): WorkerData {
+  const { inputs, sweep, design } = prepared.loaded.study;
+  return { sweep: { inputs, sweep }, plan: prepared.plan, methodIds: prepared.methods.map((m) => m.id), ...(design && { design }) };
 }
 
 export async function runStudy(store: Store, prepared: PreparedStudy, options: RunOptions = {}): Promise<RunOutcome> {
@@ -249,9 +273,9 @@ async function computeAndWrite(
 ): Promise<unknown> {
   if (todo.length === 0) return undefined;
   const methodIds = prepared.methods.map((m) => m.id);
-  const writer = createBatchWriter(store, runId, methodIds);
-  const { inputs, sweep } = prepared.loaded.study;
-  const pool = createPool(workers, { sweep: { inputs, sweep }, plan: prepared.plan, methodIds });
+  const writer = withPointSummaries(store, runId, createBatchWriter(store, runId, methodIds));
+  const { sweep } = prepared.loaded.study;
+  const pool = createPool(workers, workerDataOf(prepared));
   const sizer = new BatchSizer(todo.length, workers, options.batchSize, innermostLength(sweep));
   const inFlight = options.inFlight ?? workers * 2;
   const limit = pLimit(inFlight);

@@ -3,16 +3,19 @@
 // thread never expands the sweep or copies inputs across), solves them and returns rows
 // already encoded as JSON, so the main thread only has to insert them.
 import { workerData } from 'piscina';
-import { compileSolver } from '../physics/engine.js';
+import { compilePointDesigner } from '../design/point.js';
+import { encodeSummaries } from '../design/stored-summaries.js';
+import type { SummaryFacts } from '../design/summary.js';
 import type { Inputs, Outputs } from '../physics/types.js';
 // sweep.js directly, not the study index: the index also loads the YAML parser, zod and
 // the unit tables, which would add most of a second to every worker's start.
 import { iteratePoints } from '../study/sweep.js';
 import type { BatchTask, ComputedBatch, WorkerData } from './batch-task.js';
 
-const { sweep, plan, methodIds } = workerData as WorkerData;
-// Sweeps flag a property temperature outside the fluid's range instead of stopping.
-const solve = compileSolver(plan, { strict: false });
+const { sweep, plan, methodIds, design } = workerData as WorkerData;
+// Sweeps flag a property temperature outside the fluid's range instead of stopping. The
+// designer solves the study's target and bands where it has them, and summarises each point.
+const solve = compilePointDesigner(plan, methodIds, design);
 const M = methodIds.length;
 
 export default function computeBatch(task: BatchTask): ComputedBatch {
@@ -22,10 +25,12 @@ export default function computeBatch(task: BatchTask): ComputedBatch {
   const inputs: string[] = new Array(n);
   const outputs: string[] = new Array(n * M);
   const flags: string[] = new Array(n * M);
+  const summaries: SummaryFacts[] = new Array(n);
   for (let i = 0; i < n; i++) {
     const point = points[i];
     inputs[i] = JSON.stringify(point);
-    const rows = solve(point);
+    const { rows, facts } = solve(point, indices[i]);
+    summaries[i] = facts;
     if (rows.length !== M) throw new Error(`solver returned ${rows.length} rows for ${M} methods`);
     for (let m = 0; m < M; m++) {
       const row = rows[m];
@@ -37,7 +42,7 @@ export default function computeBatch(task: BatchTask): ComputedBatch {
       flags[i * M + m] = JSON.stringify(rowFlags);
     }
   }
-  return { points: indices, inputs, outputs, flags, computeMs: performance.now() - t0 };
+  return { points: indices, inputs, outputs, flags, summaries: encodeSummaries(indices, summaries, methodIds), computeMs: performance.now() - t0 };
 }
 
 // The batch's points, walking the sweep once per range: iteratePoints sets up the value

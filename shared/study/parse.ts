@@ -5,7 +5,8 @@
 import { LineCounter, isAlias, parseDocument, visit, type Document } from 'yaml';
 import type { z } from 'zod';
 import { getMethod, methodsFor, requireConfiguration } from '../physics/catalogue.js';
-import { commonDimensionalInputs } from '../physics/configurations.js';
+import { dimensionalInputsOf } from '../physics/configurations.js';
+import { conflictMessage, inputConflicts } from '../physics/point-inputs.js';
 import { derivableInputs, missingInputs, resolveFluid, unknownInputs, type FluidSpec, type SolvePlan } from '../physics/engine.js';
 import { dimensionalNames } from '../physics/quantities.js';
 import { InputError, type InputSpec, type InputValue, type Inputs, type Method } from '../physics/types.js';
@@ -16,6 +17,9 @@ import { sha256Hex } from './sha256.js';
 import { countPoints, entryLength, stepProblem, zipProblem, type Sweep, type SweepEntry } from './sweep.js';
 import type { LoadedStudy, Study, StudyCheck, Tolerance } from './types.js';
 import { UnitError, differenceToSI, hasUnits, isDimensional, quantityToSI, valueInUnit } from './units.js';
+import type { DesignSpec } from '../design/types.js';
+import { makeUnitLookup } from '../export/units.js';
+import { outputValueToSI, resolveDesign } from './design-blocks.js';
 import { issueMessages } from './zod-issues.js';
 
 /** Default ceiling on the number of points of one study. */
@@ -95,6 +99,9 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
   const seed = piece(sweepSchema.shape.seed, sweepRaw.seed);
   const samples = piece(sweepSchema.shape.samples, sweepRaw.samples);
   const rawOver = entriesOf(sweepRaw.over, sweepEntrySchema, piece);
+  const rawTarget = piece(shape.target, raw.target);
+  const rawTolerances = piece(shape.tolerances, raw.tolerances);
+  const rawUncertainty = piece(shape.uncertainty, raw.uncertainty);
   const rawChecks = Array.isArray(raw.checks) ? raw.checks.map((c) => piece(checkSchema, c)) : (piece(shape.checks, raw.checks) ?? []);
   // Names as written, whether or not their values are well formed.
   const fixedNames = isRecord(raw.inputs) ? Object.keys(raw.inputs) : [];
@@ -108,7 +115,7 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     try {
       const c = requireConfiguration(configuration);
       // characteristic_length overrides the length of any configuration (engine.ts).
-      configurationInputs = new Set([...c.dimensionalInputs, ...commonDimensionalInputs, 'characteristic_length']);
+      configurationInputs = new Set(dimensionalInputsOf(c));
       const resolved = resolveMethods(configuration, listedMethods, raw.methods !== undefined, report);
       methods = resolved.methods;
       if (!resolved.ok) complete = false;
@@ -147,18 +154,21 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
       complete = false;
     }
     const entry = rawOver[key];
-    const e = entry === undefined ? undefined : convertEntry(base, key, entry, convert, methods ? specs.get(key) ?? [] : undefined, report);
+    const e = entry === undefined ? undefined : convertEntry(base, key, entry, convert, methods ? specs.get(key) ?? [] : undefined, report, design ?? 'grid', samples);
     if (e) over[key] = e;
     else sweepComplete = complete = false;
   }
 
-  // Fluid, with constant properties in SI.
-  const fluid = rawFluid === undefined ? undefined : convertFluid(rawFluid, report);
+  // Fluid, with constant properties and mixture parameters in SI.
+  const fluid = rawFluid === undefined ? undefined : convertFluid(rawFluid, report, { inputs, sweptNames });
   if (rawFluid !== undefined && fluid === undefined) complete = false;
 
-  // Names against the catalogue: unknown, missing, and whether a fluid is needed.
-  const names = [...fixedNames, ...sweptNames];
-  const pathOf = (n: string): Path => (fixedNames.includes(n) ? ['inputs', n] : ['sweep', 'over', n]);
+  // Names against the catalogue: unknown, missing, and whether a fluid is needed. A
+  // target's adjusted input is part of every point (design-blocks.ts checks its name).
+  const adjustKnown = (n: string) => (isDimensional(n) ? configurationInputs?.has(n) : specs.has(n));
+  const adjusted = rawTarget && adjustKnown(rawTarget.adjust) && !fixedNames.includes(rawTarget.adjust) && !sweptNames.includes(rawTarget.adjust) ? [rawTarget.adjust] : [];
+  const names = [...fixedNames, ...sweptNames, ...adjusted];
+  const pathOf = (n: string): Path => (fixedNames.includes(n) ? ['inputs', n] : sweptNames.includes(n) ? ['sweep', 'over', n] : ['target', 'adjust']);
   if (configurationInputs) {
     for (const n of names.filter((x) => isDimensional(x) && !configurationInputs.has(x))) {
       report(pathOf(n), `input '${n}' has no meaning for configuration '${configuration}' (its dimensional inputs: ${[...configurationInputs].join(', ')})`, true);
@@ -181,6 +191,11 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
       }
     }
   }
+  // One thing said once: velocity with Re, heat_flux with surface_temperature, Pr with a fluid …
+  for (const c of inputConflicts(names, raw.fluid !== undefined)) {
+    report(pathOf(c.second), conflictMessage(c), true);
+    complete = false;
+  }
   const dimensional = names.filter(isDimensional);
   if (dimensional.length && raw.fluid === undefined) {
     report(pathOf(dimensional[0]), `dimensional inputs (${dimensional.join(', ')}) need a fluid: add fluid: water, air, … or {constant: {...}}`, true);
@@ -190,6 +205,29 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     report(['fluid'], 'a fluid needs fluid_temperature (fixed or swept) to read its properties', true);
     complete = false;
   }
+
+  // Design answers: target, tolerances, uncertainty.
+  let designSpec: DesignSpec | undefined;
+  if (methods && configurationInputs && configuration !== undefined) {
+    const resolved = resolveDesign(
+      { target: rawTarget, tolerances: rawTolerances, uncertainty: rawUncertainty },
+      {
+        configuration,
+        methods,
+        configurationInputs,
+        specs,
+        fixedNames,
+        sweptNames,
+        dimensional: names.some(isDimensional),
+        report,
+        convert,
+        whereIs: (n) => (fixedNames.includes(n) ? `inputs, line ${where.find(['inputs', n], { key: true }).line}` : `sweep, line ${where.find(['sweep', 'over', n], { key: true }).line}`),
+      },
+    );
+    designSpec = resolved.design;
+    if (!resolved.ok) complete = false;
+  }
+  if ((raw.target !== undefined && !rawTarget) || (raw.tolerances !== undefined && !rawTolerances) || (raw.uncertainty !== undefined && !rawUncertainty)) complete = false;
 
   const resolvedSweep: Sweep = { design: design ?? 'grid', seed: seed ?? 1, over };
   if (samples !== undefined) resolvedSweep.samples = samples;
@@ -217,10 +255,23 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
       report([...base, 'method'], `method '${c.method}' is not one of this study's methods (${methods.map((m) => m.id).join(', ')})`);
       complete = false;
     }
+    const expect: Record<string, number> = {};
+    const unitOf = methods ? makeUnitLookup(methods) : () => undefined;
+    for (const [out, value] of Object.entries(c.expect)) {
+      try {
+        expect[out] = isDimensional(out) && typeof value === 'string' ? quantityToSI(out, value) : outputValueToSI(out, unitOf(out), value);
+      } catch (e) {
+        if (!(e instanceof UnitError)) throw e;
+        report([...base, 'expect', out], `${out}: ${e.message}`);
+        complete = false;
+      }
+    }
     if (method && dimensional.length === 0) {
-      // Dimensionless studies give exactly the method's outputs; dimensional ones add h, q, … (engine.ts).
+      // Dimensionless studies give exactly the method's outputs (and the design layer's
+      // bands and solved input); dimensional ones add h, q, … (engine.ts).
+      const designNames = designOutputNames(designSpec);
       for (const out of Object.keys(c.expect)) {
-        if (!method.outputs.some((o) => o.name === out)) {
+        if (!method.outputs.some((o) => o.name === out) && !designNames(out)) {
           report([...base, 'expect', out], `method '${method.id}' has no output '${out}' (outputs: ${method.outputs.map((o) => o.name).join(', ')})`, true);
           complete = false;
         }
@@ -231,7 +282,7 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
       complete = false;
     }
     const { line, column } = where.find(base);
-    checks.push({ at, method: c.method, expect: c.expect, tolerance: toleranceOf(c.tolerance), line, column });
+    checks.push({ at, method: c.method, expect, tolerance: toleranceOf(c.tolerance), line, column });
   });
 
   if (!complete || name === undefined || configuration === undefined || !methods) return undefined;
@@ -245,7 +296,15 @@ function resolve(raw: Record<string, unknown>, report: Report, where: PositionFi
     sweep: resolvedSweep,
     checks,
     baseline: { tolerance: relativeOf(rawBaseline?.tolerance ?? 1e-9) },
+    ...(designSpec !== undefined && { design: designSpec }),
   };
+}
+
+/** Whether a name is one the design layer adds to rows: the solved input, or a band or range end. */
+function designOutputNames(design: DesignSpec | undefined): (name: string) => boolean {
+  return (name) =>
+    design !== undefined &&
+    ((design.target !== undefined && (name === design.target.adjust || /_(min|max)$/.test(name))) || (design.uncertainty !== undefined && /_(low|high)$/.test(name)));
 }
 
 // The methods to run: those listed, or all of the configuration. Bad ids are reported
@@ -342,6 +401,8 @@ function convertEntry(
   convert: (path: Path, name: string, value: InputValue) => InputValue | undefined,
   specs: InputSpec[] | undefined,
   report: Report,
+  design: Sweep['design'],
+  samples: number | undefined,
 ): SweepEntry | undefined {
   if (Array.isArray(entry)) {
     const values = entry.map((v, i) => convert([...base, i], name, v));
@@ -355,12 +416,23 @@ function convertEntry(
   const from = convert([...base, 'from'], name, entry.from);
   const to = convert([...base, 'to'], name, entry.to);
   if (typeof from !== 'number' || typeof to !== 'number') return undefined;
-  if ('count' in entry) {
+  if (!('step' in entry)) {
+    // A latin hypercube samples the interval: `samples` sets the number of points, so a
+    // count there would be ignored; any other design needs one.
+    if (design === 'latin-hypercube' && entry.count !== undefined) {
+      report([...base, 'count'], `${name}: a latin-hypercube sweep takes its number of points from samples; remove count`, true);
+      return undefined;
+    }
+    if (design !== 'latin-hypercube' && entry.count === undefined) {
+      report(base, `${name}: a range needs count (the number of values, both ends included) or step; only a latin-hypercube sweep leaves it out (samples sets the number)`);
+      return undefined;
+    }
     if (entry.spacing === 'log' && !(from > 0 && to > 0)) {
       report([...base, 'spacing'], `${name}: log spacing needs from and to > 0, got ${from} and ${to}`);
       return undefined;
     }
-    return { kind: 'range', from, to, count: entry.count, spacing: entry.spacing };
+    // In a latin hypercube the count only sizes the entry (the sampler uses from, to, spacing).
+    return { kind: 'range', from, to, count: entry.count ?? Math.max(2, samples ?? 2), spacing: entry.spacing };
   }
   let step: number;
   try {
@@ -386,10 +458,18 @@ function plainNumber(v: number | string): number {
 // SI units of the `{constant: {...}}` properties, as mathjs spells them.
 const propertyUnits = { rho: 'kg/m^3', cp: 'J/(kg K)', mu: 'Pa s', k: 'W/(m K)', beta: 'K^-1' } as const;
 
-function convertFluid(raw: NonNullable<StudyFile['fluid']>, report: Report): FluidSpec | undefined {
+function convertFluid(
+  raw: NonNullable<StudyFile['fluid']>,
+  report: Report,
+  study: { inputs: Inputs; sweptNames: string[] },
+): FluidSpec | undefined {
   let spec: FluidSpec;
   if (typeof raw === 'string' || 'table' in raw) spec = raw;
-  else {
+  else if ('name' in raw) {
+    const mixture = convertMixture(raw, report, study);
+    if (!mixture) return undefined;
+    spec = mixture;
+  } else {
     const constant: Record<string, number> = {};
     let ok = true;
     for (const [key, value] of Object.entries(raw.constant)) {
@@ -413,6 +493,36 @@ function convertFluid(raw: NonNullable<StudyFile['fluid']>, report: Report): Flu
     report(['fluid'], e.message);
     return undefined;
   }
+}
+
+type RawMixture = Extract<NonNullable<StudyFile['fluid']>, { name: string }>;
+
+// `{name, concentration: 40 %}` or `{name: humid-air, relative_humidity: 60 %}` in SI
+// fractions. Humid air takes the study's fixed `pressure` input (default 1 atm, see
+// fluids/humidAir.ts): its composition at a given relative humidity depends on the
+// pressure, and a study resolves its fluid once, so a swept pressure is refused.
+function convertMixture(raw: RawMixture, report: Report, study: { inputs: Inputs; sweptNames: string[] }): FluidSpec | undefined {
+  const spec: { name: string; concentration?: number; relative_humidity?: number; pressure?: number } = { name: raw.name };
+  let ok = true;
+  for (const key of ['concentration', 'relative_humidity'] as const) {
+    const value = raw[key];
+    if (value === undefined) continue;
+    if (typeof value === 'number' && value > 1) {
+      report(['fluid', key], `${key}: ${value} reads as a fraction (${value * 100} %); write "${value} %" or ${value / 100}`);
+      ok = false;
+      continue;
+    }
+    spec[key] = relativeOf(value);
+  }
+  if (raw.name === 'humid-air') {
+    if (study.sweptNames.includes('pressure')) {
+      report(['sweep', 'over', 'pressure'], "humid-air takes one pressure per study (its composition at a relative humidity depends on it): fix 'pressure' under inputs", true);
+      ok = false;
+    }
+    const pressure = study.inputs.pressure;
+    if (typeof pressure === 'number') spec.pressure = pressure;
+  }
+  return ok ? spec : undefined;
 }
 
 /** Design rules and the point limit, from entry lengths alone; false when something was reported. */

@@ -69,11 +69,30 @@ const tableFluid = strict({
   beta: column.optional().describe('volumetric expansion coefficient, 1/K'),
 });
 
+// A mixture's parameter: a percentage ("40 %") or a fraction (0.4).
+const fractionError = 'expected a percentage such as "40 %" or a fraction such as 0.4';
+const fraction = z
+  .union([z.string().regex(percentPattern, { error: fractionError }), z.number({ error: fractionError })], { error: fractionError })
+  .describe('a percentage such as "40 %", or a fraction such as 0.4');
+
+const mixtureFluid = strict({
+  name: z.string({ error: 'expected a fluid name such as propylene-glycol-water' }).describe('catalogue fluid name'),
+  concentration: fraction.optional().describe('glycol mass fraction of a glycol–water solution, 10 % to 60 %'),
+  relative_humidity: fraction
+    .optional()
+    .describe('relative humidity of humid-air, 0 % to 100 % (its pressure is the pressure input, default 1 atm)'),
+});
+
 export const fluidSchema = z
-  .union([z.string(), strict({ constant: constantFluid }), strict({ table: tableFluid })], {
-    error: 'expected a catalogue fluid name, {constant: {rho, cp, mu, k}} or {table: {T, rho, cp, mu, k}}',
+  .union([z.string(), strict({ constant: constantFluid }), strict({ table: tableFluid }), mixtureFluid], {
+    error:
+      'expected a catalogue fluid name, {name: propylene-glycol-water, concentration: 40 %}, ' +
+      '{name: humid-air, relative_humidity: 60 %}, {constant: {rho, cp, mu, k}} or {table: {T, rho, cp, mu, k}}',
   })
-  .describe('a catalogue fluid (water, air, …), {constant: {rho, cp, mu, k, beta?}} or {table: {T: [...], rho: [...], cp, mu, k, beta?}}');
+  .describe(
+    'a catalogue fluid (water, air, …), a mixture {name: ethylene-glycol-water | propylene-glycol-water, concentration: 40 %} ' +
+      'or {name: humid-air, relative_humidity: 60 %}, {constant: {rho, cp, mu, k, beta?}} or {table: {T: [...], rho: [...], cp, mu, k, beta?}}',
+  );
 
 const count = z
   .number({ error: 'expected a whole number ≥ 2' })
@@ -87,7 +106,9 @@ export const sweepEntrySchema = z
       strict({
         from: quantity,
         to: quantity,
-        count: count.describe('number of values, both ends included'),
+        // Required except in a latin-hypercube sweep, whose `samples` sets the number of
+        // points (parse.ts says which); optional here so both forms share one shape.
+        count: count.optional().describe('number of values, both ends included (leave out in a latin-hypercube sweep)'),
         spacing: z
           .enum(['linear', 'log'], { error: 'expected linear or log' })
           .default('linear')
@@ -101,7 +122,7 @@ export const sweepEntrySchema = z
     ],
     { error: 'expected a list, {from, to, count, spacing?} or {from, to, step}' },
   )
-  .describe('a list of values, {from, to, count, spacing: linear|log} or {from, to, step}');
+  .describe('a list of values, {from, to, count, spacing: linear|log} or {from, to, step}; latin-hypercube: {from, to, spacing?}');
 
 export const sweepSchema = strict({
   design: z
@@ -131,9 +152,43 @@ export const checkSchema = strict({
     .describe('values that pick one point: swept or fixed inputs, or outputs such as Re (units allowed)'),
   method: z.string({ error: 'expected a method id' }).describe('method id'),
   expect: z
-    .record(z.string(), finiteNumber, { error: 'expected a mapping of output names to SI numbers' })
-    .describe('expected outputs, SI numbers'),
+    .record(z.string(), quantity, { error: 'expected a mapping of output names to values' })
+    .describe('expected outputs (or a target\'s solved input): SI numbers or strings with units such as "3.2 m/s"'),
   tolerance: toleranceSchema,
+});
+
+// Design answers (issue 11): the input that meets a requirement, the inputs' tolerances
+// and the Monte Carlo settings of the uncertainty bands. Units and names are checked in
+// parse.ts against the configuration.
+export const targetSchema = strict({
+  output: z.string({ error: 'expected an output name such as h, heat_rate or outlet_temperature' }).describe('the output to meet'),
+  value: quantity.describe('the required value of the output (units allowed: "50 W/(m^2 K)", "35 degC")'),
+  adjust: z.string({ error: 'expected an input name such as velocity or length' }).describe('the input solved for; neither fixed nor swept'),
+  within: z
+    .array(quantity, { error: 'expected [low, high], e.g. [0.1 m/s, 30 m/s]' })
+    .min(2, { error: 'expected two values [low, high]' })
+    .max(2, { error: 'expected two values [low, high]' })
+    .describe('the search interval [low, high] of the adjusted input'),
+});
+
+/** A tolerance of an input: `5 %` (relative) or a value with units (absolute), a 95 % half-width. */
+export const inputToleranceSchema = z
+  .union([finiteNumber, z.string()], { error: 'expected a percentage such as "5 %" or a value with units such as "0.1 mm"' })
+  .describe('95 % half-width: "5 %" (relative), or a value with units such as "0.1 mm" or "2 K" (absolute; plain numbers are SI)');
+
+export const uncertaintySchema = strict({
+  samples: z
+    .number({ error: 'expected a whole number from 20 to 100000' })
+    .int({ error: 'expected a whole number from 20 to 100000' })
+    .min(20, { error: 'expected a whole number from 20 to 100000' })
+    .max(100_000, { error: 'expected a whole number from 20 to 100000' })
+    .default(400)
+    .describe('Monte Carlo samples per point and method (used when tolerances are given)'),
+  seed: z
+    .number({ error: 'expected a whole number' })
+    .int({ error: 'expected a whole number' })
+    .default(1)
+    .describe('seed of the samples; with the point index it fixes every draw, on any machine and worker count'),
 });
 
 export const studySchema = strict({
@@ -154,6 +209,12 @@ export const studySchema = strict({
     .default({})
     .describe('fixed inputs'),
   sweep: sweepSchema.optional(),
+  target: targetSchema.optional().describe('solve, per point and method, the input that makes an output equal a value'),
+  tolerances: z
+    .record(z.string(), inputToleranceSchema, { error: 'expected a mapping of input names to tolerances' })
+    .optional()
+    .describe('95 % half-widths of inputs; results get <output>_low/_high bands'),
+  uncertainty: uncertaintySchema.optional().describe('uncertainty bands: Monte Carlo samples and seed'),
   checks: z.array(checkSchema, { error: 'expected a list of checks' }).default([]),
   baseline: strict({
     tolerance: z

@@ -1,6 +1,7 @@
 // A study after validation: every value in SI, methods resolved, ready to expand and run.
 import type { FluidSpec } from '../physics/engine.js';
 import type { Inputs } from '../physics/types.js';
+import type { DesignSpec } from '../design/types.js';
 import type { Sweep } from './sweep.js';
 
 /** A check passes when within either bound: |actual − expected| ≤ relative·|expected|, or ≤ absolute (SI). */
@@ -35,6 +36,8 @@ export interface Study {
   checks: StudyCheck[];
   /** Relative tolerance used when comparing with the committed baseline. */
   baseline: { tolerance: number };
+  /** Design answers asked for: a target, input tolerances, bands (shared/design). */
+  design?: DesignSpec;
 }
 
 export interface LoadedStudy {

@@ -34,10 +34,15 @@ export function quantityToSI(name: string, value: number | string): number {
 export function differenceToSI(name: string, value: number | string): number {
   const q = findQuantity(name);
   if (!q) throw new UnitError(`'${name}' is not a dimensional quantity`);
+  return differenceInUnit(q.unit, value, describe(q));
+}
+
+/** A difference in a given SI unit: offsets do not apply (`5 degC` is 5 K). */
+export function differenceInUnit(siUnit: string, value: number | string, what = siUnit): number {
   if (typeof value === 'number') return finite(value, value);
   const u = readUnit(value);
-  checkDimension(u, q.unit, value, describe(q));
-  return u.toNumber(q.unit) - unit(0, u.formatUnits()).toNumber(q.unit);
+  checkDimension(u, siUnit, value, what);
+  return finite(u.toNumber(siUnit) - unit(0, u.formatUnits()).toNumber(siUnit), value);
 }
 
 /** A value in a given SI unit (fluid properties: `kg/m^3`, `J/(kg K)` …). */

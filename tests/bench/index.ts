@@ -1,7 +1,7 @@
 // `npm run bench`: throughput figures, reported as ratios measured in one run (the
 // machine is shared and noisy, so absolute numbers mean little on their own).
 // Not a test: it asserts nothing and CI does not run it. Sections can be picked:
-//   npm run bench -- similarity correlations e2e sweep workers api
+//   npm run bench -- similarity correlations e2e sweep workers api queue design
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -10,6 +10,7 @@ import { benchCorrelations } from './correlations.js';
 import { benchEndToEnd, benchWorkers } from './runner.js';
 import { benchApi } from './api.js';
 import { benchQueue } from './queue.js';
+import { benchDesign } from './design.js';
 import type { BenchContext } from './timing.js';
 
 const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
@@ -20,6 +21,7 @@ const sections: Record<string, (ctx: BenchContext) => Promise<void> | void> = {
   workers: benchWorkers,
   api: benchApi,
   queue: benchQueue,
+  design: benchDesign,
 };
 
 async function main() {

@@ -77,6 +77,8 @@ describe.skipIf(!existsSync(CHROMIUM))('dashboard in Chromium', { timeout: 120_0
   let browser: Browser;
   let runA: number;
   let runB: number;
+  // Content-Security-Policy violations reported in any page's console (issue 10, item 1).
+  const cspViolations: string[] = [];
 
   beforeAll(async () => {
     mkdirSync(shots, { recursive: true });
@@ -99,6 +101,14 @@ describe.skipIf(!existsSync(CHROMIUM))('dashboard in Chromium', { timeout: 120_0
     const ids = ((await listRuns(store)) as { id: number }[]).map((r) => r.id).sort((x, y) => x - y);
     [runA, runB] = ids;
     browser = await chromium.launch({ executablePath: CHROMIUM, args: launchArgs });
+    const newContext = browser.newContext.bind(browser);
+    browser.newContext = async (...args: Parameters<Browser['newContext']>) => {
+      const context = await newContext(...args);
+      context.on('console', (m) => {
+        if (/Content Security Policy|Refused to (load|execute|apply|connect|frame)/i.test(m.text())) cspViolations.push(`${m.location().url}: ${m.text()}`);
+      });
+      return context;
+    };
   }, 180_000);
 
   afterAll(async () => {
@@ -295,5 +305,9 @@ describe.skipIf(!existsSync(CHROMIUM))('dashboard in Chromium', { timeout: 120_0
     await expect.poll(() => newcomer.getByTestId('current-user').textContent()).toContain('researcher');
     await fresh.close();
     await context.close();
+  });
+
+  it('ran every page above under the Content-Security-Policy with no violation in the console', () => {
+    expect(cspViolations).toEqual([]);
   });
 });

@@ -4,6 +4,7 @@ import { rangeFlags } from '../ranges.js';
 import { InputError, type InputSpec, type Method, type OutputSpec } from '../types.js';
 import { optionalLengthRatio, petukhovFrictionFactor, withPressureDrop } from './friction.js';
 import { readInputs } from './method-inputs.js';
+import { laminarEntryFlag, shortTubeFactor, shortTubeInput, turbulentEntryFlag } from './entry-length.js';
 import { gnielinskiNusselt, gnielinskiRanges, LAMINAR_RE_LIMIT, type WallCondition } from './pipe.js';
 
 const CONFIGURATION = 'duct';
@@ -100,26 +101,32 @@ const laminarRectangular: Method = {
       choices: ['temperature', 'flux'],
     },
     lengthInput,
+    { name: 'Pr', description: 'Prandtl number at the bulk temperature (optional: with L_over_D it gives the thermal entry-length check)', unit: '1', required: false },
   ],
   outputs: [
     ...frictionOutputs('(f·Re)/Re from Shah & London (fully developed; the entry region adds to it)'),
     { name: 'f_Re', description: 'Darcy friction factor times Re on D_h (Poiseuille number)', unit: '1' },
   ],
-  ranges: [{ input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar flow, Re on D_h' }],
+  ranges: [
+    { input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar flow, Re on D_h' },
+    { input: 'L_over_D', note: 'fully developed: flagged entry-region where L/D_h < 0.05·Re·max(1, Pr)' },
+  ],
   uncertainty: {
     fraction: 0.1,
     note: 'Table values are exact solutions for constant properties (interpolation within 0.5 %); ±10 % for real ducts, where properties vary, is common practice.',
   },
   source:
     'Shah, R.K. & London, A.L. (1978) Laminar Flow Forced Convection in Ducts, Academic Press, ch. VII, rectangular-duct table of fRe, Nu_T, Nu_H1; as reproduced (rounded) in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., Table 8.1',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(laminarRectangular, raw);
     const Re = input.number('Re');
     const values = rectangularLaminarValues(input.number('aspect_ratio'));
     const Nu = (input.string('wall_condition') as WallCondition) === 'flux' ? values.Nu_H : values.Nu_T;
-    const out = withPressureDrop(Nu, values.fRe / Re, optionalLengthRatio(input));
-    return { outputs: { ...out, f_Re: values.fRe }, flags: rangeFlags(laminarRectangular.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const out = withPressureDrop(Nu, values.fRe / Re, LD);
+    const entry = laminarEntryFlag(Re, input.values.Pr === undefined ? undefined : input.number('Pr'), LD);
+    return { outputs: { ...out, f_Re: values.fRe }, flags: [...rangeFlags(laminarRectangular.ranges, input.values), ...(entry ? [entry] : [])] };
   },
 };
 
@@ -132,22 +139,27 @@ const turbulentRectangular: Method = {
     'Fully developed transitional and turbulent flow in a smooth rectangular duct, treated as a circular tube of diameter D_h = 2ab/(a+b): Gnielinski\'s correlation with the Petukhov friction factor, Re on D_h. The hydraulic-diameter approach is a fair approximation in turbulent flow; it is poorer for very flat ducts (a ≲ 0.1).',
   equation:
     '\\mathrm{Nu}_{D_h} = \\frac{(f/8)(\\mathrm{Re}_{D_h} - 1000)\\mathrm{Pr}}{1 + 12.7\\,(f/8)^{1/2}\\left(\\mathrm{Pr}^{2/3} - 1\\right)},\\quad f = (0.790\\ln\\mathrm{Re}_{D_h} - 1.64)^{-2},\\quad D_h = \\frac{2ab}{a+b}',
-  inputs: [ReInput, { name: 'Pr', description: 'Prandtl number at the bulk temperature', unit: '1', required: true }, lengthInput],
+  inputs: [ReInput, { name: 'Pr', description: 'Prandtl number at the bulk temperature', unit: '1', required: true }, lengthInput, shortTubeInput],
   outputs: frictionOutputs('Petukhov (0.790 ln Re − 1.64)^−2 on D_h'),
-  ranges: gnielinskiRanges,
+  ranges: [...gnielinskiRanges, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D_h = 10' }],
   uncertainty: {
     fraction: 0.15,
     note: "Gnielinski's ±10 % for circular tubes (Incropera §8.5, from memory), widened for the hydraulic-diameter approximation: common practice.",
   },
   source:
     'Gnielinski, V. (1976) Int. Chem. Eng. 16:359–368, with Petukhov, B.S. (1970) Adv. Heat Transfer 6:503–564, applied on D_h as recommended in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., §8.6',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(turbulentRectangular, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
     const f = petukhovFrictionFactor(Re);
-    return { outputs: withPressureDrop(gnielinskiNusselt(Re, Pr, f), f, optionalLengthRatio(input)), flags: rangeFlags(turbulentRectangular.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const corrected = input.boolean('short_tube_correction');
+    if (corrected && LD === undefined) throw new InputError('short_tube_correction needs L_over_D');
+    const Nu = gnielinskiNusselt(Re, Pr, f) * (corrected ? shortTubeFactor(LD!) : 1);
+    const entry = turbulentEntryFlag(LD, corrected);
+    return { outputs: withPressureDrop(Nu, f, LD), flags: [...rangeFlags(turbulentRectangular.ranges, input.values), ...(entry ? [entry] : [])] };
   },
 };
 

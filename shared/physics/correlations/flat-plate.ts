@@ -26,7 +26,17 @@ const averageOutputs: OutputSpec[] = [
   { name: 'Cf_x', description: 'local skin-friction coefficient at x = L', unit: '1' },
 ];
 
-const laminarRe: ValidityRange = { input: 'Re', max: DEFAULT_TRANSITION_RE, note: 'laminar boundary layer: below transition on a smooth plate' };
+/**
+ * Laminar boundary layer: below transition on a smooth plate, and above Re_L = 1e3, where the
+ * boundary-layer approximation (δ/x ≈ 5·Re_x^−½ ≪ 1) starts to hold (common practice).
+ */
+export const BOUNDARY_LAYER_RE_MIN = 1e3;
+const laminarRe: ValidityRange = {
+  input: 'Re',
+  min: BOUNDARY_LAYER_RE_MIN,
+  max: DEFAULT_TRANSITION_RE,
+  note: 'laminar boundary layer: below transition on a smooth plate, and Re ≥ 1e3 for the boundary-layer approximation (common practice)',
+};
 const laminarPr: ValidityRange = { input: 'Pr', min: 0.6, note: 'the Pr^(1/3) form fails for liquid metals' };
 const turbulentRe: ValidityRange = {
   input: 'Re',
@@ -61,7 +71,8 @@ const laminar: Method = {
   },
   source:
     'Pohlhausen, E. (1921) ZAMM 1:115–121; Blasius, H. (1908) Z. Math. Phys. 56:1–37; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., §7.2.1',
-  version: 1,
+  wallConditions: ['temperature'],
+  version: 2,
   evaluate(raw) {
     const input = readInputs(laminar, raw);
     const Re = input.number('Re');
@@ -109,7 +120,7 @@ const churchillOzoe: Method = {
   },
   source:
     'Churchill, S.W. & Ozoe, H. (1973) J. Heat Transfer 95:416–419 (isothermal) and 95:78–84 (uniform flux); isothermal form as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 7.32',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(churchillOzoe, raw);
     const Re = input.number('Re');
@@ -139,7 +150,8 @@ const turbulent: Method = {
   uncertainty: { fraction: 0.15, note: 'Common practice for turbulent flat-plate correlations (no figure stated by the sources).' },
   source:
     'Colburn, A.P. (1933) Trans. AIChE 29:174–210 (j-factor analogy) with the 1/5-power friction law C_f,x = 0.0592 Re_x^-1/5 (Schlichting, Boundary-Layer Theory); as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 7.34–7.36 and 7.38 with Re_x,c = 0',
-  version: 1,
+  wallConditions: ['temperature'],
+  version: 2,
   evaluate(raw) {
     const input = readInputs(turbulent, raw);
     const Re = input.number('Re');
@@ -190,7 +202,8 @@ const mixed: Method = {
   uncertainty: { fraction: 0.15, note: 'Common practice; the abrupt-transition model ignores the transition region.' },
   source:
     'Laminar Pohlhausen (1921) and turbulent Colburn (1933) local relations integrated over an abrupt transition; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 7.38–7.41',
-  version: 1,
+  wallConditions: ['temperature'],
+  version: 2,
   evaluate(raw) {
     const input = readInputs(mixed, raw);
     const Re = input.number('Re');
@@ -243,7 +256,8 @@ const laminarUniformFlux: Method = {
   },
   source:
     'Kays, W.M., Crawford, M.E. & Weigand, B., Convective Heat and Mass Transfer, 4th ed. (2005), laminar constant-heat-rate plate; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 7.45. Average by integrating ΔT(x) (ours)',
-  version: 1,
+  wallConditions: ['flux'],
+  version: 2,
   evaluate(raw) {
     const input = readInputs(laminarUniformFlux, raw);
     const Re = input.number('Re');
@@ -270,7 +284,8 @@ const turbulentUniformFlux: Method = {
   uncertainty: { fraction: 0.15, note: 'Common practice for turbulent flat-plate correlations (no figure stated by the sources).' },
   source:
     'Kays, W.M., Crawford, M.E. & Weigand, B., Convective Heat and Mass Transfer, 4th ed. (2005), turbulent constant-heat-rate plate; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 7.46. Average by integrating ΔT(x) (ours)',
-  version: 1,
+  wallConditions: ['flux'],
+  version: 2,
   evaluate(raw) {
     const input = readInputs(turbulentUniformFlux, raw);
     const Re = input.number('Re');
@@ -325,7 +340,8 @@ const unheatedLaminar: Method = {
   uncertainty: { fraction: 0.1, note: 'Common practice: an integral-method (cubic-profile) result on top of the laminar correlation.' },
   source:
     'Kays, W.M., Crawford, M.E. & Weigand, B., Convective Heat and Mass Transfer, 4th ed. (2005), integral method; average: Ameel, T.A. (1997) Int. Comm. Heat Mass Transfer 24:1113–1120; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 7.24 and 7.42 (p = 2)',
-  version: 1,
+  wallConditions: ['temperature'],
+  version: 2,
   evaluate(raw) {
     const input = readInputs(unheatedLaminar, raw);
     const Re = input.number('Re');
@@ -353,7 +369,8 @@ const unheatedTurbulent: Method = {
   uncertainty: { fraction: 0.15, note: 'Common practice for turbulent flat-plate correlations.' },
   source:
     'Kays, W.M., Crawford, M.E. & Weigand, B., Convective Heat and Mass Transfer, 4th ed. (2005), integral method; average: Ameel, T.A. (1997) Int. Comm. Heat Mass Transfer 24:1113–1120; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 7.37 and 7.42 (p = 8)',
-  version: 1,
+  wallConditions: ['temperature'],
+  version: 2,
   evaluate(raw) {
     const input = readInputs(unheatedTurbulent, raw);
     const Re = input.number('Re');

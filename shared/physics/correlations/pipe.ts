@@ -12,6 +12,9 @@ import {
   withPressureDrop,
 } from './friction.js';
 import { readInputs } from './method-inputs.js';
+import { laminarEntryFlag, shortTubeFactor, shortTubeInput, turbulentEntryFlag } from './entry-length.js';
+import { pipeFrictionFactor, roughnessInput } from './colebrook.js';
+import { gnielinskiLaminarMean, intermittency, TRANSITION_RE } from './pipe-transition.js';
 
 const CONFIGURATION = 'pipe';
 
@@ -21,8 +24,9 @@ export const LAMINAR_RE_LIMIT = 2300;
 export const TURBULENT_RE_MIN = 1e4;
 
 // Fully developed laminar Nusselt numbers, Shah & London (1978): 3.657 (uniform wall
-// temperature, Graetz eigenvalue) and 48/11 = 4.364 (uniform heat flux).
-export const LAMINAR_NU = { temperature: 3.66, flux: 4.36 } as const;
+// temperature, Graetz eigenvalue 3.65679, checked against tests/fixtures/laminar_duct_reference.py)
+// and 48/11 = 4.364 (uniform heat flux), at full precision rather than the textbooks' 3.66 / 4.36.
+export const LAMINAR_NU = { temperature: 3.65679, flux: 48 / 11 } as const;
 export type WallCondition = keyof typeof LAMINAR_NU;
 
 const ReInput: InputSpec = { name: 'Re', description: 'Reynolds number on the inner diameter, u_m D/ν', unit: '1', required: true };
@@ -66,11 +70,31 @@ const outputs = (frictionNote: string): OutputSpec[] => [
   { name: 'pressure_drop_coefficient', description: 'K = f·L/D, so that Δp = K·½ρu_m² (only when L_over_D is given)', unit: '1' },
 ];
 const laminarOutputs = outputs('64/Re (Hagen–Poiseuille, fully developed; the entry region adds to it)');
-const turbulentOutputs = outputs('Petukhov (0.790 ln Re − 1.64)^−2 for smooth tubes, fitted for 3000 ≤ Re ≤ 5e6');
+const turbulentOutputs = outputs('Petukhov (0.790 ln Re − 1.64)^−2 for smooth tubes, fitted for 3000 ≤ Re ≤ 5e6; Colebrook with relative_roughness');
+/** Smooth-tube correlations: a rough wall raises h by more than they know (gnielinski takes the rough f). */
+const smoothOnly: ValidityRange = { input: 'relative_roughness', max: 0, note: 'smooth tubes; f follows the roughness (Colebrook), Nu does not: use gnielinski' };
+const optionalRoughness = (input: { values: Record<string, unknown>; number(name: string, domain?: 'non-negative'): number }) =>
+  input.values.relative_roughness === undefined ? undefined : input.number('relative_roughness', 'non-negative');
 
 const laminarRe: ValidityRange = { input: 'Re', max: LAMINAR_RE_LIMIT, note: 'laminar pipe flow' };
 const turbulentRe: ValidityRange = { input: 'Re', min: TURBULENT_RE_MIN, note: 'fully turbulent flow' };
-const fullyDevelopedLength: ValidityRange = { input: 'L_over_D', min: 10, note: 'fully developed turbulent flow' };
+const optionalPrInput: InputSpec = {
+  name: 'Pr',
+  description: 'Prandtl number at the bulk temperature (optional: with L_over_D it gives the thermal entry-length check)',
+  unit: '1',
+  required: false,
+};
+
+/**
+ * A turbulent method's Nu with the optional short-tube factor, and its entry-region flag
+ * (flagged below L/D = 10 unless the factor is applied).
+ */
+function turbulentLength(input: { values: Record<string, unknown>; boolean(name: string): boolean }, Nu: number, L_over_D: number | undefined) {
+  const corrected = input.boolean('short_tube_correction');
+  if (corrected && L_over_D === undefined) throw new InputError('short_tube_correction needs L_over_D');
+  const flag = turbulentEntryFlag(L_over_D, corrected);
+  return { Nu: corrected ? Nu * shortTubeFactor(L_over_D!) : Nu, flags: flag ? [flag] : [] };
+}
 
 
 
@@ -80,24 +104,26 @@ const laminarDeveloped: Method = {
   kind: 'correlation',
   title: 'Fully developed laminar flow (Nu = 3.66 / 4.36)',
   description:
-    'Hydrodynamically and thermally fully developed laminar flow, constant properties. Nu = 3.66 for a uniform wall temperature, 4.36 for a uniform wall heat flux; independent of Re and Pr. Use hausen or sieder-tate-laminar for short tubes where the entry region matters.',
+    'Hydrodynamically and thermally fully developed laminar flow, constant properties. Nu = 3.66 for a uniform wall temperature, 4.36 for a uniform wall heat flux; independent of Re and Pr. Flagged entry-region where the tube is shorter than the entry length (0.05·Re·D hydrodynamic, 0.05·Re·Pr·D thermal): use hausen or sieder-tate-laminar there.',
   equation:
     '\\mathrm{Nu}_D = 3.66\\ (T_s = \\text{const}),\\quad \\mathrm{Nu}_D = \\tfrac{48}{11} = 4.36\\ (q_s\'\' = \\text{const}),\\quad f = 64/\\mathrm{Re}_D',
-  inputs: [ReInput, wallConditionInput, lengthInput(false)],
+  inputs: [ReInput, wallConditionInput, lengthInput(false), optionalPrInput],
   outputs: laminarOutputs,
-  ranges: [laminarRe],
+  ranges: [laminarRe, { input: 'L_over_D', note: 'fully developed: flagged entry-region where L/D < 0.05·Re·max(1, Pr)' }],
   uncertainty: {
     fraction: 0.1,
     note: 'Exact for constant properties and fully developed flow (checked against tests/fixtures/laminar_duct_reference.py); ±10 % for real tubes, where properties vary, is common practice.',
   },
   source:
     'Graetz, L. (1883) Ann. Phys. 18:79–94 (uniform wall temperature); Shah, R.K. & London, A.L. (1978) Laminar Flow Forced Convection in Ducts, Academic Press (3.657 and 4.364); as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., §8.4.1',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(laminarDeveloped, raw);
     const Re = input.number('Re');
-    const Nu = LAMINAR_NU[input.string('wall_condition') as WallCondition];
-    return { outputs: withPressureDrop(Nu, laminarFrictionFactor(Re), optionalLengthRatio(input)), flags: rangeFlags(laminarDeveloped.ranges, input.values) };
+    const Nu: number = LAMINAR_NU[input.string('wall_condition') as WallCondition];
+    const LD = optionalLengthRatio(input);
+    const entry = laminarEntryFlag(Re, input.values.Pr === undefined ? undefined : input.number('Pr'), LD);
+    return { outputs: withPressureDrop(Nu, laminarFrictionFactor(Re), LD), flags: [...rangeFlags(laminarDeveloped.ranges, input.values), ...(entry ? [entry] : [])] };
   },
 };
 
@@ -118,6 +144,7 @@ const hausen: Method = {
   inputs: [ReInput, PrInput, lengthInput(true)],
   outputs: [...laminarOutputs, { name: 'Gz', description: 'Graetz number Re·Pr/(L/D)', unit: '1' }],
   ranges: [laminarRe],
+  wallConditions: ['temperature'],
   uncertainty: {
     fraction: 0.12,
     note: 'Against the exact Graetz solution (tests/fixtures/graetz_reference.py): within 2 % for Gz ≤ 100, up to 12 % high near Gz = 3000; real-tube property effects come on top.',
@@ -156,6 +183,7 @@ const siederTateLaminar: Method = {
     { input: 'viscosity_ratio', min: 0.0044, max: 9.75 },
     { input: 'L_over_D', note: 'short tubes only: flagged when (Gz)^⅓(μ_b/μ_s)^0.14 < 2' },
   ],
+  wallConditions: ['temperature'],
   uncertainty: { fraction: 0.2, note: 'Common practice; the sources state no figure.' },
   source:
     'Sieder, E.N. & Tate, G.E. (1936) Ind. Eng. Chem. 28:1429–1435; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 6th ed., §8.4.2 (edition from memory)',
@@ -185,22 +213,24 @@ const dittusBoelter: Method = {
   description:
     'Fully developed turbulent flow in a smooth tube, moderate wall-to-bulk temperature differences. Exponent n = 0.4 when the fluid is heated (heating = true, the default) and 0.3 when it is cooled.',
   equation: '\\mathrm{Nu}_D = 0.023\\,\\mathrm{Re}_D^{4/5}\\mathrm{Pr}^{n},\\quad n = 0.4\\ (T_s > T_m),\\ 0.3\\ (T_s < T_m)',
-  inputs: [ReInput, PrInput, heatingInput, lengthInput(false)],
+  inputs: [ReInput, PrInput, heatingInput, lengthInput(false), shortTubeInput, roughnessInput],
   outputs: turbulentOutputs,
-  ranges: [turbulentRe, { input: 'Pr', min: 0.6, max: 160 }, fullyDevelopedLength],
+  ranges: [turbulentRe, { input: 'Pr', min: 0.6, max: 160 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }, smoothOnly],
   uncertainty: {
     fraction: 0.25,
     note: 'Incropera et al. (§8.5): errors as large as 25 % (wording from memory).',
   },
   source:
     'Dittus, F.W. & Boelter, L.M.K. (1930) Univ. Calif. Publ. Eng. 2:443–461 (reprinted Int. Comm. Heat Mass Transfer 12 (1985) 3–22); the 0.023 coefficient is McAdams\' restatement (Winterton, R.H.S. (1998) Int. J. Heat Mass Transfer 41:809–810); as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 8.60',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(dittusBoelter, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
-    const Nu = dittusBoelterNusselt(Re, Pr, input.boolean('heating'));
-    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), optionalLengthRatio(input)), flags: rangeFlags(dittusBoelter.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const { Nu, flags } = turbulentLength(input, dittusBoelterNusselt(Re, Pr, input.boolean('heating')), LD);
+    const friction = pipeFrictionFactor(Re, optionalRoughness(input), false);
+    return { outputs: withPressureDrop(Nu, friction.f, LD), flags: [...rangeFlags(dittusBoelter.ranges, input.values), ...flags, ...friction.flags] };
   },
 };
 
@@ -217,22 +247,24 @@ const siederTate: Method = {
   description:
     'Fully developed turbulent flow in a smooth tube where viscosity varies strongly between wall and bulk (oils); the (μ_b/μ_s)^0.14 factor carries the correction. All properties except μ_s at the bulk temperature.',
   equation: '\\mathrm{Nu}_D = 0.027\\,\\mathrm{Re}_D^{4/5}\\mathrm{Pr}^{1/3}\\left(\\frac{\\mu}{\\mu_s}\\right)^{0.14}',
-  inputs: [ReInput, PrInput, viscosityRatioInput, lengthInput(false)],
+  inputs: [ReInput, PrInput, viscosityRatioInput, lengthInput(false), shortTubeInput, roughnessInput],
   outputs: turbulentOutputs,
-  ranges: [turbulentRe, { input: 'Pr', min: 0.7, max: 16700 }, fullyDevelopedLength],
+  ranges: [turbulentRe, { input: 'Pr', min: 0.7, max: 16700 }, { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10' }, smoothOnly],
   uncertainty: {
     fraction: 0.25,
     note: 'Incropera et al. (§8.5): errors as large as 25 % (wording from memory).',
   },
   source:
     'Sieder, E.N. & Tate, G.E. (1936) Ind. Eng. Chem. 28:1429–1435; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eq. 8.61',
-  version: 1,
+  version: 2,
   evaluate(raw) {
     const input = readInputs(siederTate, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
-    const Nu = siederTateNusselt(Re, Pr, input.number('viscosity_ratio'));
-    return { outputs: withPressureDrop(Nu, petukhovFrictionFactor(Re), optionalLengthRatio(input)), flags: rangeFlags(siederTate.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const { Nu, flags } = turbulentLength(input, siederTateNusselt(Re, Pr, input.number('viscosity_ratio')), LD);
+    const friction = pipeFrictionFactor(Re, optionalRoughness(input), false);
+    return { outputs: withPressureDrop(Nu, friction.f, LD), flags: [...rangeFlags(siederTate.ranges, input.values), ...flags, ...friction.flags] };
   },
 };
 
@@ -254,28 +286,62 @@ const gnielinski: Method = {
   id: 'gnielinski',
   configuration: CONFIGURATION,
   kind: 'correlation',
-  title: 'Gnielinski (transitional and turbulent, with Petukhov friction factor)',
+  title: 'Gnielinski (transitional and turbulent; smooth or rough tubes)',
   description:
-    'Fully developed transitional and turbulent flow in a smooth tube, built on the Petukhov friction factor f = (0.790 ln Re − 1.64)^−2. More accurate than Dittus–Boelter and valid down to Re = 3000. Undefined (an input error) for Re ≤ 1000.',
+    "Transitional and turbulent flow in a tube. Re ≥ 1e4: Gnielinski's correlation with the Petukhov friction factor for a smooth tube, or the Colebrook f when relative_roughness is given (the rough-tube use the source allows). 2300 < Re < 1e4: Gnielinski's intermittency blend Nu = (1 − γ)·Nu_lam(2300) + γ·Nu_turb(1e4), γ = (Re − 2300)/7700, with his laminar composite (fully developed 3.66 / 4.354 by wall_condition; with short_tube_correction the mean over L/D) and this method's own turbulent value at Re = 1e4, so there is no gap between the laminar and turbulent ranges. Below Re = 2300 his laminar composite, flagged.",
   equation:
-    '\\mathrm{Nu}_D = \\frac{(f/8)(\\mathrm{Re}_D - 1000)\\mathrm{Pr}}{1 + 12.7\\,(f/8)^{1/2}\\left(\\mathrm{Pr}^{2/3} - 1\\right)},\\quad f = (0.790\\ln\\mathrm{Re}_D - 1.64)^{-2}',
-  inputs: [ReInput, PrInput, lengthInput(false)],
-  outputs: turbulentOutputs,
-  ranges: gnielinskiRanges,
+    '\\mathrm{Nu}_D = \\frac{(f/8)(\\mathrm{Re}_D - 1000)\\mathrm{Pr}}{1 + 12.7\\,(f/8)^{1/2}\\left(\\mathrm{Pr}^{2/3} - 1\\right)}\\ (\\mathrm{Re}_D \\ge 10^4),\\quad f = (0.790\\ln\\mathrm{Re}_D - 1.64)^{-2}\\ \\text{or}\\ \\frac{1}{\\sqrt f} = -2\\log_{10}\\left(\\frac{\\varepsilon/D}{3.7} + \\frac{2.51}{\\mathrm{Re}_D\\sqrt f}\\right);\\quad \\mathrm{Nu}_D = (1 - \\gamma)\\,\\mathrm{Nu}_{lam,2300} + \\gamma\\,\\mathrm{Nu}_{turb,10^4},\\ \\gamma = \\frac{\\mathrm{Re}_D - 2300}{10^4 - 2300}\\ (2300 < \\mathrm{Re}_D < 10^4)',
+  inputs: [ReInput, PrInput, lengthInput(false), shortTubeInput, roughnessInput, wallConditionInput],
+  outputs: [
+    ...outputs('Petukhov for smooth tubes, Colebrook (1939) with relative_roughness; 64/Re below Re = 2300'),
+    { name: 'intermittency', description: 'γ of the transition blend (2300 < Re < 1e4 only)', unit: '1' },
+  ],
+  ranges: [
+    { input: 'Re', min: TRANSITION_RE.laminar, max: PETUKHOV_RE_RANGE.max, note: 'transitional (blend) and turbulent flow' },
+    { input: 'Pr', min: 0.5, max: 2000 },
+    { input: 'relative_roughness', max: 0.05, note: 'Colebrook; flagged too where f/f_smooth > 4, past which roughness stops raising h (Norris 1971, from memory)' },
+    { input: 'L_over_D', note: 'fully developed: flagged entry-region below L/D = 10 (in the blend: below the laminar entry length at Re = 2300) unless short_tube_correction' },
+  ],
   uncertainty: {
     fraction: 0.1,
-    note: 'Incropera et al. (§8.5): errors reduced to less than 10 % compared with Dittus–Boelter (wording from memory).',
+    note: 'Incropera et al. (§8.5): errors reduced to less than 10 % compared with Dittus–Boelter (wording from memory); the transition range and rough walls are less certain.',
   },
   source:
-    'Gnielinski, V. (1976) Int. Chem. Eng. 16:359–368, with Petukhov, B.S. (1970) Adv. Heat Transfer 6:503–564; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 8.62 and 8.21',
-  version: 1,
+    "Gnielinski, V. (1976) Int. Chem. Eng. 16:359–368, with Petukhov, B.S. (1970) Adv. Heat Transfer 6:503–564 (Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 8.62 and 8.21; the Moody/Colebrook f for rough tubes as Incropera allows there, from memory); Colebrook, C.F. (1939) J. Inst. Civil Eng. 11:133–156; transition: Gnielinski, V. (1995) Forsch. Ingenieurwes. 61:240–248 and (2013) On heat transfer in tubes, Int. J. Heat Mass Transfer 63:134–140, with his laminar composite of VDI Heat Atlas, 2nd ed. (2010), ch. G1 (from memory)",
+  version: 3,
   evaluate(raw) {
     const input = readInputs(gnielinski, raw);
     const Re = input.number('Re');
     const Pr = input.number('Pr');
-    const f = petukhovFrictionFactor(Re);
-    return { outputs: withPressureDrop(gnielinskiNusselt(Re, Pr, f), f, optionalLengthRatio(input)), flags: rangeFlags(gnielinski.ranges, input.values) };
+    const LD = optionalLengthRatio(input);
+    const roughness = optionalRoughness(input);
+    const condition = input.string('wall_condition') as WallCondition;
+    const ranges = rangeFlags(gnielinski.ranges, input.values);
+    if (Re >= TRANSITION_RE.turbulent) {
+      const friction = pipeFrictionFactor(Re, roughness, true);
+      const { Nu, flags } = turbulentLength(input, gnielinskiNusselt(Re, Pr, friction.f), LD);
+      return { outputs: withPressureDrop(Nu, friction.f, LD), flags: unique([...ranges, ...flags, ...friction.flags]) };
+    }
+    // The laminar part of the blend is fully developed unless the short-tube mean is asked for.
+    const corrected = input.boolean('short_tube_correction');
+    if (corrected && LD === undefined) throw new InputError('short_tube_correction needs L_over_D');
+    const laminarEntry = corrected ? undefined : laminarEntryFlag(TRANSITION_RE.laminar, Pr, LD);
+    if (Re <= TRANSITION_RE.laminar) {
+      const Nu = gnielinskiLaminarMean(Re, Pr, corrected ? LD : undefined, condition);
+      const entry = corrected ? undefined : laminarEntryFlag(Re, Pr, LD);
+      return { outputs: withPressureDrop(Nu, laminarFrictionFactor(Re), LD), flags: unique([...ranges, ...(entry ? [entry] : [])]) };
+    }
+    const atTurbulent = pipeFrictionFactor(TRANSITION_RE.turbulent, roughness, true);
+    const turbulent = turbulentLength(input, gnielinskiNusselt(TRANSITION_RE.turbulent, Pr, atTurbulent.f), LD).Nu;
+    const laminar = gnielinskiLaminarMean(TRANSITION_RE.laminar, Pr, corrected ? LD : undefined, condition);
+    const g = intermittency(Re);
+    const friction = pipeFrictionFactor(Re, roughness, false);
+    const Nu = (1 - g) * laminar + g * turbulent;
+    const flags = [...ranges, ...atTurbulent.flags, ...friction.flags, ...(laminarEntry ? [laminarEntry] : [])];
+    return { outputs: { ...withPressureDrop(Nu, friction.f, LD), intermittency: g }, flags: unique(flags) };
   },
 };
+
+const unique = (flags: string[]) => [...new Set(flags)];
 
 export const pipeMethods: Method[] = [laminarDeveloped, hausen, siederTateLaminar, dittusBoelter, siederTate, gnielinski];

@@ -84,6 +84,71 @@ export function rowCorrection(arrangement: TubeArrangement, rows: number): numbe
   return c[i] + t * (c[i + 1] - c[i]);
 }
 
+// Žukauskas' friction-factor charts for banks (as in Incropera et al., 7th ed., Figs. 7.14
+// and 7.15: f against Re_max, one curve per pitch) are drawn from Žukauskas & Ulinskas'
+// power series Eu = f = Σ c_i/Re^i (Žukauskas, A. & Ulinskas, R. (1983) "Banks of plain and
+// finned tubes", Heat Exchanger Design Handbook §2.2.4, Hemisphere; coefficients from
+// memory). That is how the charts are put in numbers here: the series for in-line square banks
+// (P = S_L/D = S_T/D = 1.25, 1.5, 2.0) and equilateral staggered banks (P = S_T/D = 1.25,
+// 1.5, 2.5; the 2.0 curve is left out because the coefficients recalled for its upper band do
+// not join its lower band), linear in P between curves. Checked against Incropera Example 7.7.
+interface FrictionBand {
+  ReMin: number;
+  ReMax: number;
+  c: readonly number[];
+}
+const FRICTION_CURVES: Record<TubeArrangement, readonly { P: number; bands: readonly FrictionBand[] }[]> = {
+  aligned: [
+    { P: 1.25, bands: [{ ReMin: 3, ReMax: 2e3, c: [0.272, 0.207e3, 0.102e3, -0.286e3] }, { ReMin: 2e3, ReMax: 2e6, c: [0.267, 0.249e4, -0.927e7, 0.1e11] }] },
+    { P: 1.5, bands: [{ ReMin: 3, ReMax: 2e3, c: [0.263, 0.867e2, -0.202e1] }, { ReMin: 2e3, ReMax: 2e6, c: [0.235, 0.197e4, -0.124e8, 0.312e11, -0.274e14] }] },
+    { P: 2.0, bands: [{ ReMin: 7, ReMax: 800, c: [0.188, 0.566e2, -0.646e3, 0.601e4, -0.183e5] }, { ReMin: 800, ReMax: 2e6, c: [0.247, -0.595, 0.15, -0.137, 0.396] }] },
+  ],
+  staggered: [
+    { P: 1.25, bands: [{ ReMin: 3, ReMax: 1e3, c: [0.795, 0.247e3, 0.335e3, -0.155e4, 0.241e4] }, { ReMin: 1e3, ReMax: 2e6, c: [0.245, 0.339e4, -0.984e7, 0.132e11, -0.599e13] }] },
+    { P: 1.5, bands: [{ ReMin: 3, ReMax: 1e3, c: [0.683, 0.111e3, -0.973e2, 0.426e3, -0.574e3] }, { ReMin: 1e3, ReMax: 2e6, c: [0.203, 0.248e4, -0.758e7, 0.104e11, -0.482e13] }] },
+    { P: 2.5, bands: [{ ReMin: 100, ReMax: 5e3, c: [0.33, 0.989e2, -0.148e5, 0.192e7, -0.862e8] }, { ReMin: 5e3, ReMax: 2e6, c: [0.119, 0.498e4, -0.507e8, 0.251e12, -0.463e15] }] },
+  ],
+};
+
+// The chart's base layout: in-line square ((P_T − 1)/(P_L − 1) = 1), staggered equilateral
+// (P_T/P_L = 2/√3). Other layouts need Žukauskas' correction-factor chart χ, which is not put
+// in numbers here: χ = 1 is used, and a layout more than 15 % off the base is flagged.
+const LAYOUT_TOLERANCE = 0.15;
+
+export interface BankFriction {
+  /** Friction factor per row, Δp = N_L·χ·f·ρV_max²/2. */
+  f: number;
+  /** Flags: out-of-chart:Re, out-of-chart:pitch, out-of-chart:pitch_ratio. */
+  flags: string[];
+}
+
+function seriesAt(curve: { bands: readonly FrictionBand[] }, Re: number): { f: number; inChart: boolean } {
+  const bands = curve.bands;
+  const band = bands.find((b) => Re >= b.ReMin && Re <= b.ReMax) ?? (Re < bands[0].ReMin ? bands[0] : bands[bands.length - 1]);
+  const f = band.c.reduce((sum, ci, i) => sum + ci / Re ** i, 0);
+  return { f, inChart: Re >= bands[0].ReMin && Re <= bands[bands.length - 1].ReMax };
+}
+
+/** Žukauskas' bank friction factor f(Re_max, pitch) with the chart's out-of-range flags. */
+export function bankFrictionFactor(arrangement: TubeArrangement, Re: number, ST_over_D: number, SL_over_D: number): BankFriction {
+  const curves = FRICTION_CURVES[arrangement];
+  const flags: string[] = [];
+  const P = arrangement === 'aligned' ? SL_over_D : ST_over_D;
+  const layout = arrangement === 'aligned' ? (ST_over_D - 1) / (SL_over_D - 1) : ST_over_D / SL_over_D / (2 / Math.sqrt(3));
+  if (Math.abs(layout - 1) > LAYOUT_TOLERANCE) flags.push('out-of-chart:pitch_ratio');
+  const first = curves[0];
+  const last = curves[curves.length - 1];
+  if (P < first.P || P > last.P) flags.push('out-of-chart:pitch');
+  const Pc = Math.min(Math.max(P, first.P), last.P);
+  let i = 0;
+  while (i < curves.length - 2 && curves[i + 1].P < Pc) i++;
+  const lo = seriesAt(curves[i], Re);
+  const hi = seriesAt(curves[i + 1], Re);
+  if (!lo.inChart || !hi.inChart) flags.push('out-of-chart:Re');
+  const t = (Pc - curves[i].P) / (curves[i + 1].P - curves[i].P);
+  return { f: lo.f + t * (hi.f - lo.f), flags };
+}
+
 const zukauskasBank: Method = {
   id: 'zukauskas-bank',
   configuration: 'tube-bank',
@@ -119,6 +184,12 @@ const zukauskasBank: Method = {
     { name: 'Nu', description: 'average Nusselt number over the bank, h̄D/k', unit: '1' },
     { name: 'row_correction', description: 'C2, the factor applied for N_L < 20 (1 for 20 rows or more)', unit: '1' },
     { name: 'max_velocity_ratio', description: 'V_max/V from the pitches', unit: '1' },
+    { name: 'f', description: "Žukauskas' friction factor per row (chart in numbers: Žukauskas & Ulinskas' power series; χ = 1)", unit: '1' },
+    {
+      name: 'pressure_drop_coefficient',
+      description: 'K = N_L·χ·f, so that Δp = K·½ρV_max² over the bank (flags out-of-chart:Re, :pitch, :pitch_ratio where the charts end)',
+      unit: '1',
+    },
   ],
   ranges: [
     { input: 'Re', min: 10, max: 2e6, note: 'outside the table the end bands are extended' },
@@ -127,8 +198,8 @@ const zukauskasBank: Method = {
   ],
   uncertainty: { fraction: 0.2, note: 'Common practice for tube-bank correlations (no figure taken from the source).' },
   source:
-    'Zukauskas, A. (1972) Heat transfer from tubes in crossflow, Advances in Heat Transfer 8:93–160; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 7.58–7.59 and Tables 7.5–7.6',
-  version: 1,
+    'Zukauskas, A. (1972) Heat transfer from tubes in crossflow, Advances in Heat Transfer 8:93–160; as given in Incropera et al., Fundamentals of Heat and Mass Transfer, 7th ed., eqs. 7.58–7.59 and Tables 7.5–7.6; pressure drop: Incropera eq. 7.65 with Figs. 7.14–7.15, the charts in numbers by Žukauskas, A. & Ulinskas, R. (1983) Heat Exchanger Design Handbook §2.2.4 (power-series coefficients from memory)',
+  version: 2,
   evaluate(raw) {
     const input = readInputs(zukauskasBank, raw);
     const Re = input.number('Re');
@@ -147,9 +218,10 @@ const zukauskasBank: Method = {
       : row.C * Re ** row.m * Pr ** 0.36 * (Pr / Pr_s) ** 0.25;
     const C2 = rowCorrection(arrangement, rows);
     const checked = arrangement === 'aligned' ? { ...input.values, ST_over_SL: ST / SL } : input.values;
+    const friction = bankFrictionFactor(arrangement, Re, ST, SL);
     return {
-      outputs: { Nu: C2 * Nu20, row_correction: C2, max_velocity_ratio: ratio },
-      flags: rangeFlags(zukauskasBank.ranges, checked),
+      outputs: { Nu: C2 * Nu20, row_correction: C2, max_velocity_ratio: ratio, f: friction.f, pressure_drop_coefficient: rows * friction.f },
+      flags: [...rangeFlags(zukauskasBank.ranges, checked), ...friction.flags],
     };
   },
 };

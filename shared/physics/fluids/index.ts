@@ -1,6 +1,15 @@
-// Fluid properties: the catalogue (air, water, engine oil, ethylene glycol) and user fluids.
-export { catalogueFluids, fluidNames, getFluid } from './catalogue.js';
+// Fluid properties: the catalogue (air, water, engine oil, ethylene glycol, sodium; glycol–water
+// solutions and humid air with their parameters), user fluids, and specs that name them.
+export {
+  catalogueFluids,
+  fluidNames,
+  getFluid,
+  parametricFluids,
+  type FluidParameter,
+  type ParametricFluid,
+} from './catalogue.js';
 export { makeConstantFluid, type ConstantFluidOptions } from './constantFluid.js';
+export { resolveFluidSpec, type FluidParameters, type FluidSpec } from './spec.js';
 export {
   makeTableFluid,
   type FluidColumns,

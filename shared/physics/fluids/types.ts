@@ -31,10 +31,12 @@ export class FluidRangeError extends Error {
     public readonly temperature: number,
     public readonly Tmin: number,
     public readonly Tmax: number,
+    /** Why the range ends where it does, e.g. the freezing point of a solution. */
+    note?: string,
   ) {
     super(
       `temperature ${temperature.toFixed(2)} K is outside the range of fluid '${fluid}' ` +
-        `(${Tmin.toFixed(2)} K to ${Tmax.toFixed(2)} K)`,
+        `(${Tmin.toFixed(2)} K to ${Tmax.toFixed(2)} K)${note ? `: ${note}` : ''}`,
     );
     this.name = 'FluidRangeError';
   }

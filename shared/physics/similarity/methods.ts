@@ -7,7 +7,7 @@ import { recoveryFactor, thermalSolution } from './thermal.js';
 import { solveFreeConvection } from './freeConvection.js';
 import { forcedFlowProfiles, freeConvectionProfiles } from './profiles.js';
 
-const VERSION = 1;
+const VERSION = 2;
 
 const UNCERTAINTY = {
   fraction: 1e-6,
@@ -30,8 +30,11 @@ const out = (name: string, description: string, unit = '1'): OutputSpec => ({ na
 const PR_FORCED: ValidityRange = { input: 'Pr', min: 1e-3, max: 1e4, note: 'range verified against the SciPy reference' };
 const RE_LAMINAR: ValidityRange = {
   input: 'Re',
+  min: 1e3,
   max: 5e5,
-  note: 'laminar layer: transition is usually taken near Re_x = 5e5 (common practice)',
+  note:
+    'laminar layer: transition is usually taken near Re_x = 5e5; below Re_x = 1e3 the boundary-layer approximation ' +
+    '(δ/x ≈ 5·Re_x^−½ ≪ 1) no longer holds (both common practice)',
 };
 
 const BLOWING_NOTE =
@@ -136,6 +139,7 @@ export const flatPlateSimilarity: Method = {
     out('Nu_x_freestream_Re_half', 'Nu_x_freestream/Re_x^½'),
   ],
   ranges: flatPlateRanges,
+  wallConditions: ['temperature'],
   uncertainty: UNCERTAINTY,
   source:
     'Blasius, H. (1908) Grenzschichten in Flüssigkeiten mit kleiner Reibung, Z. Math. Phys. 56, 1–37; ' +
@@ -200,6 +204,7 @@ export const wedgeSimilarity: Method = {
     PR_FORCED,
     { input: 'm', min: -0.0904, max: 4, note: 'from just above separation (m = −0.09043) to strongly accelerated flow' },
   ],
+  wallConditions: ['temperature'],
   uncertainty: UNCERTAINTY,
   source:
     'Falkner, V. M. & Skan, S. W. (1931) Phil. Mag. 12, 865–896; Hartree, D. R. (1937) Proc. Camb. Phil. Soc. ' +
@@ -231,6 +236,11 @@ const RA_LAMINAR: ValidityRange = {
   max: 1e9,
   note: 'laminar: transition on a vertical plate is usually taken near Ra_x = 1e9 (common practice)',
 };
+const GR_BOUNDARY_LAYER: ValidityRange = {
+  input: 'Gr',
+  min: 1e4,
+  note: 'below Gr_x = 1e4 the layer is too thick for the boundary-layer approximation (common practice)',
+};
 
 export const verticalPlateSimilarity: Method = {
   id: 'similarity',
@@ -259,7 +269,8 @@ export const verticalPlateSimilarity: Method = {
     out('delta99_x', 'δ/x, where u has fallen to 1 % of its maximum'),
     out('delta99_x_Gr_quarter', 'δ/x·(Gr_x/4)^¼ (independent of Gr)'),
   ],
-  ranges: [RA_LAMINAR, { input: 'Pr', min: 1e-2, max: 1e4, note: 'range verified against the SciPy reference' }],
+  ranges: [RA_LAMINAR, GR_BOUNDARY_LAYER, { input: 'Pr', min: 1e-2, max: 1e4, note: 'range verified against the SciPy reference' }],
+  wallConditions: ['temperature'],
   uncertainty: UNCERTAINTY,
   source:
     'Ostrach, S. (1953) An analysis of laminar free-convection flow and heat transfer about a flat plate parallel ' +
@@ -280,7 +291,7 @@ export const verticalPlateSimilarity: Method = {
     else throw new InputError(`${this.configuration}/${this.id} needs input 'Gr' or 'Ra'`);
     if (Gr === 0) throw new InputError(`input 'Gr' (or 'Ra') must be non-zero: without buoyancy there is no free convection`);
     const GrAbs = Math.abs(Gr);
-    const flags = rangeFlags(this.ranges, { ...inputs, Ra: GrAbs * Pr });
+    const flags = rangeFlags(this.ranges, { ...inputs, Gr: GrAbs, Ra: GrAbs * Pr });
     const sol = solveFreeConvection(Pr);
     if (sol.status !== 'ok') return failed(flags, 'not-converged');
     const q = Math.pow(GrAbs / 4, 0.25);

@@ -11,6 +11,12 @@ export interface ConfigurationInfo {
   lengthNote: string;
   propertyRule: string;
   dimensionalInputs: string[];
+  /** What the dimensional inputs mean here (internal flow: fluid_temperature is the inlet). */
+  conventions?: string;
+  /** Dimensionless inputs the engine reads (emissivity, tubes_per_row). */
+  engineInputs: string[];
+  /** Outputs the dimensional engine adds (h, q, heat_rate, outlet_temperature, q_radiation …). */
+  engineOutputs: string[];
 }
 
 export interface Catalogue {

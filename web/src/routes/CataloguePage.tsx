@@ -99,6 +99,12 @@ export function CataloguePage() {
             <div>
               <h2 id={`conf-${c.id}`} className="text-lg font-semibold">{c.title} <span className="font-mono text-sm font-normal text-ink-600">{c.id}</span></h2>
               <p className="text-sm text-ink-600">{c.description} Characteristic length: {c.lengthNote}. Properties at the {c.propertyRule} temperature.</p>
+              {c.conventions ? <p className="text-sm text-ink-600" data-testid="configuration-conventions">{c.conventions}</p> : null}
+              <p className="text-xs text-ink-600">
+                <span className="font-semibold">Dimensional inputs:</span> <span className="font-mono">{[...c.dimensionalInputs, ...(c.engineInputs ?? [])].join(', ')}</span>
+                {' · '}
+                <span className="font-semibold">Engine outputs:</span> <span className="font-mono">{(c.engineOutputs ?? []).join(', ')}</span>
+              </p>
             </div>
             {list.length ? <div className="grid grid-cols-1 gap-4 2xl:grid-cols-2">{list.map((m) => <MethodCard key={m.id} m={m} />)}</div> : <Empty>No method.</Empty>}
           </section>
