@@ -143,15 +143,22 @@ const SENSITIVITIES = [sU, sU2];
  * of the second variation u2''' = −(u2 f'' + 2 u u'' + f u2'') + 2β (u'² + f' u2') (none when 0).
  */
 function series(beta: number, p: number, q: number, q2: number): void {
+  const twoBeta = 2 * beta;
   for (let k = 0; k < p; k++) {
-    // (f'²)_k by symmetry: twice the products below the middle, plus the middle square.
-    let gg = 0;
-    const half = k >> 1;
-    for (let j = 0; j < half + (k & 1); j++) gg += sg[j] * sg[k - j];
-    gg *= 2;
-    if ((k & 1) === 0) gg += sg[half] * sg[half];
+    // f f'' in full; f'² by symmetry, twice the products below the middle plus the middle square.
     let fh = 0;
-    for (let j = 0; j <= k; j++) fh += sf[j] * sh[k - j];
+    let gg = 0;
+    const half = (k + 1) >> 1;
+    for (let j = 0; j < half; j++) {
+      fh += sf[j] * sh[k - j] + sf[k - j] * sh[j];
+      gg += sg[j] * sg[k - j];
+    }
+    gg *= 2;
+    if ((k & 1) === 0) {
+      const m = k >> 1;
+      fh += sf[m] * sh[m];
+      gg += sg[m] * sg[m];
+    }
     const inv = 1 / (k + 1);
     sF[k + 1] = sf[k] * inv;
     sf[k + 1] = sg[k] * inv;
@@ -159,7 +166,7 @@ function series(beta: number, p: number, q: number, q2: number): void {
     sh[k + 1] = (beta * (gg - (k === 0 ? 1 : 0)) - fh) * inv;
     if (k < q) {
       let cw = 0;
-      for (let j = 0; j <= k; j++) cw += 2 * beta * sg[j] * sv[k - j] - su[j] * sh[k - j] - sf[j] * sw[k - j];
+      for (let j = 0; j <= k; j++) cw += twoBeta * sg[j] * sv[k - j] - su[j] * sh[k - j] - sf[j] * sw[k - j];
       sU[k + 1] = su[k] * inv;
       su[k + 1] = sv[k] * inv;
       sv[k + 1] = sw[k] * inv;
@@ -169,7 +176,7 @@ function series(beta: number, p: number, q: number, q2: number): void {
       let cw2 = 0;
       for (let j = 0; j <= k; j++) {
         const m = k - j;
-        cw2 += 2 * beta * (sv[j] * sv[m] + sg[j] * sv2[m]) - su2[j] * sh[m] - 2 * su[j] * sw[m] - sf[j] * sw2[m];
+        cw2 += twoBeta * (sv[j] * sv[m] + sg[j] * sv2[m]) - su2[j] * sh[m] - 2 * su[j] * sw[m] - sf[j] * sw2[m];
       }
       sU2[k + 1] = su2[k] * inv;
       su2[k + 1] = sv2[k] * inv;

@@ -88,13 +88,30 @@ const SENSITIVITIES = [aF, bF];
  */
 function series(k3: number, s2: number, p: number, thermal: boolean): void {
   for (let k = 0; k < p; k++) {
+    // f f'' (and f E) in full; f'² by symmetry, twice the products below the middle plus the middle square.
     let fh = 0, fE = 0, gg = 0;
-    for (let j = 0; j <= k; j++) fh += sf[j] * sh[k - j];
-    if (thermal) for (let j = 0; j <= k; j++) fE += sf[j] * sE[k - j];
-    const half = k >> 1;
-    for (let j = 0; j < half + (k & 1); j++) gg += sg[j] * sg[k - j];
+    const half = (k + 1) >> 1;
+    if (thermal) {
+      for (let j = 0; j < half; j++) {
+        const m = k - j;
+        fh += sf[j] * sh[m] + sf[m] * sh[j];
+        fE += sf[j] * sE[m] + sf[m] * sE[j];
+        gg += sg[j] * sg[m];
+      }
+    } else {
+      for (let j = 0; j < half; j++) {
+        const m = k - j;
+        fh += sf[j] * sh[m] + sf[m] * sh[j];
+        gg += sg[j] * sg[m];
+      }
+    }
     gg *= 2;
-    if ((k & 1) === 0) gg += sg[half] * sg[half];
+    if ((k & 1) === 0) {
+      const m = k >> 1;
+      fh += sf[m] * sh[m];
+      fE += sf[m] * sE[m];
+      gg += sg[m] * sg[m];
+    }
     const inv = 1 / (k + 1);
     sF[k + 1] = sf[k] * inv;
     sf[k + 1] = sg[k] * inv;

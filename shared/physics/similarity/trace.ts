@@ -62,10 +62,12 @@ export class TraceBuilder {
   build(etaEnd: number, deltas: readonly number[] = []): SolutionTrace {
     const n = this.segments;
     const t = this.terms;
-    const eta = new Float64Array(n + 1);
-    eta.set(this.eta);
+    // One backing store for nodes, coefficients and the last node's derivatives.
+    const store = new Float64Array(n + 1 + n * t + TRACE_ORDERS);
+    const eta = store.subarray(0, n + 1);
+    for (let i = 0; i < n; i++) eta[i] = this.eta[i];
     eta[n] = etaEnd;
-    const coef = new Float64Array(n * t);
+    const coef = store.subarray(n + 1, n + 1 + n * t);
     const d0 = deltas[0] ?? 0;
     const d1 = deltas[1] ?? 0;
     for (let i = 0; i < n; i++) {
@@ -75,7 +77,7 @@ export class TraceBuilder {
       else if (this.parameters === 1) for (let k = 0; k < t; k++) coef[c + k] = scratch[o + k] + d0 * scratch[o + t + k];
       else for (let k = 0; k < t; k++) coef[c + k] = scratch[o + k] + d0 * scratch[o + t + k] + d1 * scratch[o + 2 * t + k];
     }
-    return new SolutionTrace(eta, coef, t);
+    return new SolutionTrace(eta, coef, t, store.subarray(n + 1 + n * t));
   }
 }
 
@@ -85,8 +87,6 @@ export class TraceBuilder {
  * (f'_e = 1 for forced flow, 0 for free convection).
  */
 export class SolutionTrace {
-  /** Derivatives 0 … 5 of F at the last node (the others are read off the coefficients). */
-  private readonly end = new Float64Array(TRACE_ORDERS);
   private last = 0;
 
   constructor(
@@ -95,6 +95,8 @@ export class SolutionTrace {
     /** Per step, the series of F in τ = η − η_i, `terms` coefficients each. */
     private readonly coef: Float64Array,
     private readonly terms: number,
+    /** Filled here: derivatives 0 … 5 of F at the last node (the others are read off the coefficients). */
+    private readonly end = new Float64Array(TRACE_ORDERS),
   ) {
     const n = eta.length;
     for (let k = 0; k < TRACE_ORDERS; k++) this.end[k] = this.inside(k, n - 2, eta[n - 1] - eta[n - 2]);
