@@ -29,7 +29,10 @@ function forcedSweep(mFrom: number): [number, number][] {
 }
 const PR_FORCED = 0.7;
 const FREE_PRS = logspace(1e-2, 1e4, 40);
-const ROUNDS = 5;
+/** Our sweeps take milliseconds and now and then meet a garbage collection: more of them. */
+const ROUNDS = 15;
+/** The peer's runs take seconds and vary little. */
+const PEER_ROUNDS = 5;
 const WARM_UP_SWEEPS = 8;
 
 interface PeerRun {
@@ -55,6 +58,7 @@ function runPeer(points: [number, number][], continuation: boolean): PeerRun | s
 
 /** The best of several runs: on a shared machine the other runs measure the neighbours' load. */
 const best = (xs: number[]) => Math.max(...xs);
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
 /** Wall and CPU time of fn (the machine is shared: CPU time is what load does not stretch). */
 function timed<T>(fn: () => T): { value: T; seconds: number; cpuSeconds: number } {
@@ -98,7 +102,7 @@ export function benchSimilarity(_ctx: BenchContext) {
     ours.cpu.push(points.length / run.cpuSeconds);
     values = run.value;
   }
-  for (let round = 0; round < ROUNDS; round++) {
+  for (let round = 0; round < PEER_ROUNDS; round++) {
     for (const [continuation, into] of [[true, peer], [false, peerCold]] as const) {
       const p = runPeer(points, continuation);
       if (typeof p === 'string') peerNote = p;
@@ -110,7 +114,7 @@ export function benchSimilarity(_ctx: BenchContext) {
       }
     }
   }
-  const sweepNote = `${points.length} points: m 0..3 × wall_blowing −1..0.5, Pr ${PR_FORCED}; best of ${ROUNDS} runs`;
+  const sweepNote = `${points.length} points: m 0..3 × wall_blowing −1..0.5, Pr ${PR_FORCED}; best of ${ROUNDS} runs, median ${fmt(median(ours.wall))} solves/s`;
   console.log(`Falkner–Skan + energy from scratch: ${rates(ours.wall, ours.cpu)}`);
   console.log(`  (${sweepNote}; every point a new momentum solve, no continuation between points)`);
   if (peer.wall.length === 0) {
@@ -121,7 +125,7 @@ export function benchSimilarity(_ctx: BenchContext) {
       if (r.status !== 'ok') return;
       worst = Math.max(worst, Math.abs(r.Cf_x_Re_half / values[i].Cf_x_Re_half - 1), Math.abs(r.Nu_x_Re_half / values[i].Nu_x_Re_half - 1));
     });
-    console.log(`  SciPy solve_bvp peer, tol 1e-6 (${peerNote}, ${PYTHON}, one thread):`);
+    console.log(`  SciPy solve_bvp peer, tol 1e-6 (${peerNote}, ${PYTHON}, one thread; best of ${PEER_ROUNDS} runs):`);
     console.log(`    with continuation from the previous point: ${rates(peer.wall, peer.cpu)}`);
     console.log(`    each point from a generic profile:         ${rates(peerCold.wall, peerCold.cpu)}`);
     console.log(`    largest relative difference, peer vs ours (Cf, Nu): ${worst.toExponential(1)}`);

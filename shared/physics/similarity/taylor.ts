@@ -23,8 +23,10 @@ export function orderFor(eps: number): number {
  * h = 0.9·ρ·ε^{1/p} makes the first neglected term about ε·scale. `epsRoot` is ε^{1/p}.
  */
 export function radiusStep(scale: number, previous: number, last: number, p: number, epsRoot: number): number {
-  const r1 = previous > 0 ? Math.pow(scale / previous, 1 / (p - 1)) : Infinity;
   const r2 = last > 0 ? Math.pow(scale / last, 1 / p) : Infinity;
+  // r1 < r2 exactly when |a_{p−1}| > |a_p|·r2 (as r2^{p−1} = scale/(|a_p|·r2)): only then is the
+  // second root needed.
+  const r1 = previous > 0 && (last === 0 || previous > last * r2) ? Math.pow(scale / previous, 1 / (p - 1)) : Infinity;
   return 0.9 * Math.min(r1, r2) * epsRoot;
 }
 
