@@ -46,10 +46,10 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
 
   // Defaults follow the facts (a live run gains names) until the user picks.
   const target = axes.data?.target;
-  const defaults = useMemo(() => defaultChoice(facts, regime, target), [axes.data, regime]);
+  const drawnMethods = methods.length || run.methods.length;
+  const defaults = useMemo(() => defaultChoice(facts, regime, target, drawnMethods), [axes.data, regime, drawnMethods]);
   const choice: ChartChoice = { ...defaults, ...chosen };
   if (choice.by !== 'method' && (choice.by === choice.x || !facts.some((f) => f.name === choice.by))) choice.by = 'method';
-  const drawnMethods = methods.length || run.methods.length;
   const problem = facts.length ? seriesProblem(facts, choice, drawnMethods) : null;
   const query: ChartQuery | null =
     choice.x && choice.y && !problem

@@ -40,7 +40,8 @@ function spread(f: AxisFacts): number {
   return f.min > 0 ? Math.log10(f.max / f.min) : 1;
 }
 
-export function defaultChoice(facts: readonly AxisFacts[], regime: string | undefined, target?: TargetFacts): ChartChoice {
+/** `methods`: how many methods draw; a split that would pass MAX_DRAWN_SERIES is not a default. */
+export function defaultChoice(facts: readonly AxisFacts[], regime: string | undefined, target?: TargetFacts, methods = 1): ChartChoice {
   const byName = new Map(facts.map((f) => [f.name, f]));
   const classic = regime === 'free' ? ['Ra', 'Gr'] : regime ? ['Re'] : ['Re', 'Ra'];
   const swept = facts.filter((f) => f.role === 'input' && varies(f));
@@ -48,7 +49,7 @@ export function defaultChoice(facts: readonly AxisFacts[], regime: string | unde
   const solved = target && byName.get(target.adjust);
   if (solved && numeric(solved) && (widest || swept.length === 0)) {
     const x = widest?.name ?? facts.find((f) => f.name !== solved.name && varies(f))?.name ?? facts.find((f) => f.name !== solved.name)?.name ?? '';
-    return { x, y: solved.name, by: secondBy(facts, swept, x), layout: 'style' };
+    return { x, y: solved.name, by: secondBy(facts, swept, x, methods), layout: 'style' };
   }
   const x =
     classic.find((n) => varies(byName.get(n))) ??
@@ -62,15 +63,17 @@ export function defaultChoice(facts: readonly AxisFacts[], regime: string | unde
     outputs.find((f) => varies(f))?.name ??
     outputs[0]?.name ??
     '';
-  return { x, y, by: secondBy(facts, swept, x), layout: 'style' };
+  return { x, y, by: secondBy(facts, swept, x, methods), layout: 'style' };
 }
 
 /** The second input that splits the series by default, or `method`. */
-function secondBy(facts: readonly AxisFacts[], swept: readonly AxisFacts[], x: string): string {
+function secondBy(facts: readonly AxisFacts[], swept: readonly AxisFacts[], x: string, methods: number): string {
   // With one swept input, x is that input or derived from it alone: splitting by it would
   // leave one point per series.
   const second = swept.length + secondInputs(facts, x).filter((f) => !varies(f)).length >= 2 ? secondInputs(facts, x).sort((a, b) => a.distinct - b.distinct)[0] : undefined;
-  return second && second.distinct <= MAX_STYLED_VALUES ? second.name : 'method';
+  // A default never lands on the "too many series" message: eight pipe methods × five Pr
+  // values start as one series per method.
+  return second && second.distinct <= MAX_STYLED_VALUES && second.distinct * Math.max(1, methods) <= MAX_DRAWN_SERIES ? second.name : 'method';
 }
 
 /** Inputs that can split the series: swept, not x, a countable number of values (numbers or choices). */
