@@ -143,7 +143,9 @@ describe.skipIf(!existsSync(CHROMIUM))('design answers in the dashboard', { time
     const xs = await rules.evaluateAll((els) => els.map((e) => Number(/M([\d.]+)/.exec(e.getAttribute('d') ?? '')![1])));
     expect(xs[1]).toBeGreaterThan(xs[0] + 50);
     expect(await page.getByTestId('unreached-note').textContent()).toMatch(/^6 results did not reach the target \(h = 50 W\/\(m²·K\) with velocity in 0\.1 m\/s … 2 m\/s\): dashed rules mark their x/);
-    // Hovering a rule: the target, the search interval and each method's reachable h.
+    // Hovering a rule: the target, the search interval and each method's reachable h. The
+    // mouse reaches only what is in the viewport: the chart is scrolled into view first.
+    await chart.scrollIntoViewIfNeeded();
     const box = (await rules.nth(1).boundingBox())!;
     await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
     const rows = await api<{ rows: { method: string; inputs: { diameter: number }; outputs: Record<string, number> }[] }>(page, `/api/runs/${shortRun}/export?format=json`);
@@ -222,7 +224,8 @@ describe.skipIf(!existsSync(CHROMIUM))('design answers in the dashboard', { time
     await page.goto(`${d.base}/#/measurements/${measurement}`);
     const table = page.getByRole('table', { name: 'Measured rows' });
     await table.locator('tbody tr').first().waitFor();
-    const headers = () => table.locator('thead th').allTextContents();
+    // Header text without the sort glyph of a sortable column.
+    const headers = async () => (await table.locator('thead th').allTextContents()).map((t) => t.replace(/[↕↑↓]/g, '').trim());
     expect(await headers()).toEqual(['velocity[m/s]', 'fluid_temperature[°C]', 'h[W/(m²·K)]']);
     expect(await table.locator('tbody tr').first().locator('td').allTextContents()).toEqual(['2', '26.2', '41.5']);
     expect(await page.getByTestId('column-mapping').textContent()).toContain('air [degC] → fluid_temperature [°C]');
