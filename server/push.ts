@@ -10,7 +10,7 @@
 // configuration, its methods in order, its point count. Each row may carry only the
 // study's input names and at most MAX_RUN_OUTPUT_NAMES output names over the run, each a
 // plain name as the engine writes them. Without these limits a run with thousands of
-// output names made every page of it fail (the results cache has one column per name).
+// output names made every page of it fail (the results cache of that time had one column per name; run tables have too).
 import { z } from 'zod';
 import { createBatchWriter, createRun, deleteRun, type Store } from '../shared/db/index.js';
 import { NAME_PATTERN } from '../shared/db/results-query.js';
@@ -24,7 +24,7 @@ export const MAX_PUSH_BYTES = 50 * 1024 * 1024;
 /**
  * Output names one run may have. The whole catalogue declares 25 output names and the
  * engine derives about 25 more, so a local run has at most about 50; this leaves room for
- * new outputs and stays far below what a results-cache table can hold (one column per
+ * new outputs and stays far below what a run table can hold (one column per
  * name: SQLite stops at 2000 columns, PostgreSQL at 1600).
  */
 export const MAX_RUN_OUTPUT_NAMES = 256;

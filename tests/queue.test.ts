@@ -18,24 +18,24 @@ const BIN = resolve(process.env.FILMSWEEP_TEST_BIN ?? 'bin/filmsweep.js');
 const REDIS = serviceUrl('FILMSWEEP_TEST_REDIS_URL');
 const PG = serviceUrl('FILMSWEEP_TEST_PG_URL');
 
-// Each m is a new momentum solve: about 3 ms a point, a few seconds for two workers.
-const STUDY = `name: queue-wedge
-configuration: wedge
+// Each Pr is a new free-convection solve (about 0.3 ms a point since the Taylor-series
+// solver): some seconds of work for two workers, so one can be killed mid-run.
+const STUDY = `name: queue-plate
+configuration: vertical-plate
 methods: [similarity]
 inputs:
-  Re: 1.0e5
+  Gr: 1.0e6
 sweep:
   over:
-    m: {from: 0, to: 3, count: 300}
-    Pr: [0.01, 0.7, 7, 100, 1000]
+    Pr: {from: 0.01, to: 1.0e4, count: 24000, spacing: log}
 `;
-const POINTS = 1500;
-const BATCH = 20;
+const POINTS = 24000;
+const BATCH = 200;
 // Short enough that the killed worker's batches come back within a few seconds.
 const LOCK = ['--lock-duration', '2', '--stalled-interval', '1'];
 
 function cli(...args: string[]) {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8', env: { ...process.env, NO_COLOR: '1' } });
+  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8', maxBuffer: 256 * 1024 * 1024, env: { ...process.env, NO_COLOR: '1' } });
   return { code: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 
@@ -83,7 +83,7 @@ describe.skipIf(!REDIS)(`run --queue with two worker processes, one killed mid-r
 
   beforeAll(() => {
     dir = mkdtempSync(join(tmpdir(), 'filmsweep-queue-cli-'));
-    study = join(dir, 'queue-wedge.yaml');
+    study = join(dir, 'queue-plate.yaml');
     writeFileSync(study, STUDY);
     // The reference: the same study run locally into its own SQLite file.
     const db = join(dir, 'local.db');

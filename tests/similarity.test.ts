@@ -207,6 +207,66 @@ describe('free convection, isothermal vertical plate', () => {
   });
 });
 
+describe('solver work and repeatability', () => {
+  const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
+
+  it('solves Falkner–Skan from scratch in a handful of integrations over m and wall blowing', () => {
+    // Counts integrations (shots), not time: the shared machine's load cannot flake it.
+    const shots: number[] = [];
+    for (const m of [0, 0.5, 1, 2, 3]) for (const wb of [-1, -0.5, 0, 0.25, 0.5]) shots.push(solveFalknerSkanUncached(m, wb).integrations);
+    expect(mean(shots)).toBeLessThan(5);
+    expect(Math.max(...shots)).toBeLessThanOrEqual(10);
+  });
+
+  it('solves free convection from scratch in a handful of integrations over Pr = 1e-2 … 1e4', () => {
+    const shots = Array.from({ length: 13 }, (_, i) => solveFreeConvectionUncached(10 ** (-2 + i / 2)).integrations);
+    expect(mean(shots)).toBeLessThan(7);
+    expect(Math.max(...shots)).toBeLessThanOrEqual(10);
+  });
+
+  it('gives the same bits whatever was solved before, cached or not (no state between points)', () => {
+    // A sweep's points may go to any worker in any order: each value must depend on its inputs only.
+    const points = [
+      { Re: 1e5, Pr: 0.7, m: 0.3, wall_blowing: -0.4 },
+      { Re: 1e5, Pr: 7, m: 2, wall_blowing: 0.3 },
+      { Re: 1e5, Pr: 0.01, m: -0.05, wall_blowing: 0 },
+      { Re: 1e5, Pr: 100, m: 0.3, wall_blowing: -0.4 },
+    ];
+    const run = (order: number[]) => {
+      clearSimilarityCaches();
+      const out: Record<string, number>[] = [];
+      for (const i of order) out[i] = wedgeSimilarity.evaluate(points[i]).outputs;
+      return out;
+    };
+    const forward = run([0, 1, 2, 3]);
+    expect(run([3, 2, 1, 0])).toEqual(forward);
+    expect(run([2, 0, 3, 1])).toEqual(forward);
+    const free = (order: number[]) => {
+      clearSimilarityCaches();
+      return order.map((Pr) => verticalPlateSimilarity.evaluate({ Gr: 1e8, Pr }).outputs);
+    };
+    expect(free([0.02, 5, 3000]).reverse()).toEqual(free([3000, 5, 0.02]));
+  });
+
+  it(
+    'continues free convection outside its Pr range, and flags what it cannot solve instead of running for minutes',
+    () => {
+      // Pr = 1e-3: −θ′(0) within 1 % of LeFevre's (1956) interpolation 0.75 Pr^½/(0.609 + 1.221 Pr^½ + 1.238 Pr)^¼
+      // (from memory); the point keeps its out-of-range flag.
+      const low = verticalPlateSimilarity.evaluate({ Gr: 1e8, Pr: 1e-3 });
+      const lefevre = (0.75 * Math.sqrt(1e-3)) / Math.pow(0.609 + 1.221 * Math.sqrt(1e-3) + 1.238e-3, 0.25);
+      expect(low.flags).toEqual(['out-of-range:Pr']);
+      expect(Math.abs(low.outputs.Nu_x_Gr_quarter / lefevre - 1)).toBeLessThan(0.01);
+      // Pr = 1e-4: the velocity's fast decay makes the series stiff over a very long domain; the
+      // solve stops at its work limit, flagged (the former solver ran two minutes, then gave up).
+      const far = verticalPlateSimilarity.evaluate({ Gr: 1e8, Pr: 1e-4 });
+      expect(far.flags.sort()).toEqual(['not-converged', 'out-of-range:Pr']);
+      expect(far.outputs).toEqual({});
+    },
+    30_000,
+  );
+});
+
 describe('caching', () => {
   it('solves the momentum equation once for a sweep over Pr and Re', () => {
     clearSimilarityCaches();

@@ -203,6 +203,12 @@ describe('chart defaults', () => {
     const facts = [f('velocity', 'input', 1, 20, 8), f('length', 'input', 0.5, 5, 4), f('fluid_temperature', 'input', 300, 300, 1), f('Re', 'output', 1e3, 1e5, 32), f('Nu', 'output', 30, 3000, 100), f('h', 'output', 10, 90, 100)];
     expect(defaultChoice(facts, 'external')).toEqual({ x: 'Re', y: 'Nu', by: 'length', layout: 'style' });
   });
+  it('starts one series per method when the split would draw more than a few dozen (eight pipe methods × five Pr values)', () => {
+    const facts = [f('Re', 'input', 500, 1e6, 10), f('Pr', 'input', 0.7, 500, 5), f('Nu', 'output', 3, 2e4, 400)];
+    expect(defaultChoice(facts, 'internal', undefined, 7)).toMatchObject({ x: 'Re', by: 'Pr' });
+    expect(defaultChoice(facts, 'internal', undefined, 8)).toMatchObject({ x: 'Re', by: 'method' });
+    expect(seriesProblem(facts, defaultChoice(facts, 'internal', undefined, 8), 8)).toBeNull();
+  });
   it('does not split by the one swept input that x derives from', () => {
     const facts = [f('velocity', 'input', 1, 20, 8), f('Re', 'output', 600, 16000, 24), f('Nu', 'output', 12, 77, 24)];
     expect(defaultChoice(facts, 'external')).toEqual({ x: 'Re', y: 'Nu', by: 'method', layout: 'style' });

@@ -46,16 +46,17 @@ export function register(program: Command) {
           maxPoints: opts.maxPoints,
         });
         process.stderr.write(`filmsweep: dashboard at ${server.url} (database ${redactUrl(resolveDbPath(opts.db))}); Ctrl-C stops\n`);
-        process.stderr.write(
-          server.links.from === 'public-url'
-            ? `filmsweep: links in e-mails: ${server.links.base} (--public-url)\n`
-            : `filmsweep: links in e-mails: ${server.links.base} (the address it listens on; pass --public-url https://… when users reach it by another name)\n`,
-        );
         const { interrupted, removed } = server.reconciled;
         if (interrupted.length) {
           process.stderr.write(`filmsweep: run${interrupted.length === 1 ? '' : 's'} ${interrupted.join(', ')} had lost ${interrupted.length === 1 ? 'its' : 'their'} process; marked interrupted (resume from the run page or with \`filmsweep resume\`)\n`);
         }
         if (removed.length) process.stderr.write(`filmsweep: removed unfinished push${removed.length === 1 ? '' : 'es'}: run ${removed.join(', ')}\n`);
+        // Last: the start-up report is complete once this line is out (tests and scripts wait for it).
+        process.stderr.write(
+          server.links.from === 'public-url'
+            ? `filmsweep: links in e-mails: ${server.links.base} (--public-url)\n`
+            : `filmsweep: links in e-mails: ${server.links.base} (the address it listens on; pass --public-url https://… when users reach it by another name)\n`,
+        );
         await new Promise<void>((resolve) => {
           const stop = () => {
             process.off('SIGINT', stop);

@@ -3,14 +3,16 @@
 // summary across methods (applicable methods, spread, recommended with the reason).
 //
 // GET /api/runs/:id/points/:point →
-//   {"run": {"id", "study", "configuration"}, "point", "inputs": {...},
+//   {"run": {"id", "study", "configuration", "title", "points_total", "status"}, "point", "inputs": {...},
 //    "rows": [{"method", "inputs", "outputs", "flags", "uncertainty": {"fraction", "note"} | null, "recommended"}],
 //    "summary": {"applicable", "spread", "spread_of", "recommended", "reason", "flags"},
-//    "summary_source": "stored" | "computed"}
+//    "summary_source": "stored" | "computed", "target"?: {"output", "value", "adjust", "within"}}
+// (`target`, SI, when the run's study has one: what a `target-not-reached` row missed.)
 // The summary is the one stored with the run; a run stored without summaries (pushed
 // from an older Filmsweep) gets it computed from its rows (spread over Nu).
 import { Router } from 'express';
 import { z } from 'zod';
+import { storedStudy, targetFacts } from '../../shared/db/chart-query.js';
 import { getPointRows, getPointSummaryFacts } from '../../shared/db/point-summaries.js';
 import { getDashboardRun } from '../../shared/db/studies.js';
 import { explainSummary, summarizePoint } from '../../shared/design/summary.js';
@@ -45,8 +47,9 @@ export function pointsRouter(ctx: AppContext): Router {
     const uncertainties = stored.rows.map((row, i) => ({ id: row.method, fraction: infos[i]?.uncertainty.fraction ?? Infinity }));
     const saved = await getPointSummaryFacts(ctx.store, id, point);
     const summary = saved ? explainSummary(saved, uncertainties, stored.rows) : summarizePoint(stored.rows, uncertainties);
+    const target = targetFacts(await storedStudy(ctx.store, id));
     res.json({
-      run: { id: run.id, study: run.study, configuration: run.configuration },
+      run: { id: run.id, study: run.study, configuration: run.configuration, title: run.title, points_total: run.points_total, status: run.status },
       point,
       inputs: stored.inputs,
       rows: stored.rows.map((row, i) => ({
@@ -56,6 +59,7 @@ export function pointsRouter(ctx: AppContext): Router {
       })),
       summary,
       summary_source: saved ? 'stored' : 'computed',
+      ...(target ? { target } : {}),
     });
   });
   return r;

@@ -13,6 +13,37 @@ export interface ChartSeries {
   value?: number | string | boolean | null;
   /** Sorted by x. */
   points: ChartPoint[];
+  /** Parallel to `points`: the run's point index of each (for the point view, /runs/:id/points/:point). */
+  point_index?: number[];
+  /**
+   * Parallel to `points`, when the run stores a band of y (`<y>_low`, `<y>_high`: the 2.5 %
+   * and 97.5 % points, shared/design/bands.ts): [low, high] in SI, null where a row has none.
+   */
+  band?: [number | null, number | null][];
+}
+
+/** A study's target (SI): the value of `adjust` in `within` at which `output` equals `value`. */
+export interface TargetFacts {
+  output: string;
+  value: number;
+  adjust: string;
+  within: [number, number];
+}
+
+/**
+ * A result whose target was not reached (flag `target-not-reached`): it has no solved
+ * input, only the range of the target's output over the search interval.
+ */
+export interface UnreachedPoint {
+  method: string;
+  /** Its series' value of the second input (series by an input). */
+  value?: number | string | boolean | null;
+  /** Its x, SI; null when x is a quantity the row does not have (a derived group such as Re). */
+  x: number | null;
+  point: number;
+  /** The target output's smallest and largest value over the search interval (`<output>_min`, `<output>_max`). */
+  min: number | null;
+  max: number | null;
 }
 
 /** Why a point is flagged, with what broke: `out-of-range:Re` at Re = 3.2e5 against max 2e5. */
@@ -82,6 +113,12 @@ export interface ChartData {
   flag_details: FlagDetail[][];
   left_out: LeftOut[];
   measured?: MeasuredOverlay;
+  /** The name whose `_low`/`_high` the series' `band` holds (y), when the run stores a band of it. */
+  band_of?: string;
+  /** Results of a target run whose target was not reached, drawn at their x (at most MAX_UNREACHED). */
+  unreached?: UnreachedPoint[];
+  /** How many results did not reach the target, when all are listed (absent: more than the list holds). */
+  unreached_total?: number;
 }
 
 /** What the chart controls need to know about one input or output of a run. */
@@ -102,6 +139,8 @@ export interface AxisFacts {
 
 export interface ChartAxes {
   names: AxisFacts[];
+  /** The study's target, when it has one: the chart then starts on the solved input against a swept one. */
+  target?: TargetFacts;
   /** Points the output facts were read from. */
   sampled_points: number;
 }

@@ -4,8 +4,9 @@
 // data overlaid with each method's deviation from it. Reads a run through the same
 // Source helpers as the results table (results-query.ts); the shapes are in
 // shared/chart/types.ts.
-import type { AxisFacts, ChartAxes, ChartData, ChartPoint, ChartSeries, FlagDetail, LeftOut, MeasuredOverlay, MeasuredRow } from '../chart/types.js';
+import type { AxisFacts, ChartAxes, ChartData, ChartPoint, ChartSeries, FlagDetail, LeftOut, MeasuredOverlay, MeasuredRow, TargetFacts, UnreachedPoint } from '../chart/types.js';
 import { describeFlag } from '../chart/flags.js';
+import { highName, lowName, maxName, minName } from '../design/names.js';
 import { getMethod } from '../physics/catalogue.js';
 import { compileSolver } from '../physics/engine.js';
 import { InputError, type Inputs, type MethodInfo } from '../physics/types.js';
@@ -14,7 +15,7 @@ import { readingRun } from './legacy-results.js';
 import type { MeasurementRow } from './measurements.js';
 import type { RunInfo } from './queries.js';
 import { eachStoredResult, hasRunTable } from './result-table.js';
-import { col, conditions, openSource, valueExpr, type RangeFilter } from './results-query.js';
+import { col, conditions, openSource, valueExpr, type RangeFilter, type Source } from './results-query.js';
 import { getRunSource } from './runs.js';
 import type { Store } from './store.js';
 
@@ -30,6 +31,8 @@ export const MAX_SERIES = 100;
  */
 export const SAMPLE_ROWS = 10_000;
 const MAX_MEASURED_ROWS = 20_000;
+/** Unreached targets listed on a chart at most (each is a marker with its own tooltip). */
+export const MAX_UNREACHED = 500;
 /** Points whose outputs the axis facts are read from. */
 const AXIS_SAMPLE_POINTS = 400;
 
@@ -51,7 +54,12 @@ interface Row {
   y: number;
   f: number;
   id: number;
+  /** Point index. */
+  p: number;
   v?: unknown;
+  /** y's band, when the run stores one. */
+  lo?: unknown;
+  hi?: unknown;
 }
 
 /**
@@ -77,6 +85,8 @@ async function chartOf(store: Store, runId: number, q: ChartQuery, options: { sa
   // The series may be text (a choice): any column of the name (a run table's numbers-only axes would drop it).
   const by = seriesBy ? valueExpr(store, src, seriesBy, false) : undefined;
   const m = col(src, 'method');
+  // y's stored band (`<y>_low`, `<y>_high`) rides along with each row, so it survives thinning.
+  const band = hasOutput(src, lowName(q.y)) && hasOutput(src, highName(q.y)) ? { lo: valueExpr(store, src, lowName(q.y)), hi: valueExpr(store, src, highName(q.y)) } : undefined;
   // Numbers only: a string or switch value cannot be plotted.
   const where = [...cond.sql, d.isNumber(x.sql), d.isNumber(y.sql)];
   const whereParams = [...cond.params, ...x.params, ...y.params];
@@ -91,9 +101,9 @@ async function chartOf(store: Store, runId: number, q: ChartQuery, options: { sa
   const sampleRows = Math.max(options.sampleRows ?? SAMPLE_ROWS, 5 * max);
   const select = (extra: string[]) =>
     d.all<Row>(
-      `select ${m} as m, ${x.sql} as x, ${y.sql} as y, ${col(src, 'flagged')} as f, ${col(src, 'id')} as id${by ? `, ${by.sql} as v` : ''}
+      `select ${m} as m, ${x.sql} as x, ${y.sql} as y, ${col(src, 'flagged')} as f, ${col(src, 'id')} as id, ${col(src, 'point')} as p${by ? `, ${by.sql} as v` : ''}${band ? `, ${band.lo.sql} as lo, ${band.hi.sql} as hi` : ''}
        from ${src.from} where ${[...where, ...extra].join(' and ')}`,
-      [...x.params, ...y.params, ...(by?.params ?? []), ...whereParams],
+      [...x.params, ...y.params, ...(by?.params ?? []), ...(band ? [...band.lo.params, ...band.hi.params] : []), ...whereParams],
     );
   const stored = src.run.results_count;
   let rows: Row[];
@@ -162,7 +172,9 @@ async function chartOf(store: Store, runId: number, q: ChartQuery, options: { sa
       }
       return [Number(r.x), Number(r.y), 1, at];
     });
-    return by ? { name: `${method}, ${seriesBy} = ${String(g.value)}`, method, value: g.value, points } : { name: method, method, points };
+    const extra: Pick<ChartSeries, 'point_index' | 'band'> = { point_index: picked[k].map((r) => Number(r.p)) };
+    if (band) extra.band = picked[k].map((r) => [finiteOrNull(r.lo), finiteOrNull(r.hi)]);
+    return by ? { name: `${method}, ${seriesBy} = ${String(g.value)}`, method, value: g.value, points, ...extra } : { name: method, method, points, ...extra };
   });
 
   const uncertainty: Record<string, number> = {};
@@ -180,6 +192,54 @@ async function chartOf(store: Store, runId: number, q: ChartQuery, options: { sa
   const out: ChartData = { x: q.x, y: q.y, total, downsampled, series_by: seriesBy ?? 'method', series, uncertainty, flag_details, left_out };
   if (sampled !== undefined) out.sampled = sampled;
   if (estimated) out.total_estimated = true;
+  if (band) out.band_of = q.y;
+  const unreached = await unreachedTargets(store, src, cond, q.x, seriesBy);
+  if (unreached) Object.assign(out, unreached);
+  return out;
+}
+
+const finiteOrNull = (v: unknown): number | null => (v === null || v === undefined || v === '' || !Number.isFinite(Number(v)) ? null : Number(v));
+
+function hasOutput(src: Source, name: string): boolean {
+  return src.columns.outputs.includes(name);
+}
+
+/**
+ * The results of a target run whose target was not reached: they carry no solved input,
+ * only the range of the target's output over the search interval (`<output>_min` and
+ * `<output>_max`, shared/design/names.ts), which no other row has. Listed with their x
+ * (null where x is a group the row does not have), under the chart's own filters.
+ */
+async function unreachedTargets(
+  store: Store,
+  src: Source,
+  cond: ReturnType<typeof conditions>,
+  xName: string,
+  seriesBy: string | undefined,
+): Promise<Pick<ChartData, 'unreached' | 'unreached_total'> | undefined> {
+  const output = src.columns.outputs.find((n) => n.endsWith('_min') && hasOutput(src, maxName(n.slice(0, -4))))?.slice(0, -4);
+  if (output === undefined) return undefined;
+  const d = store.dialect;
+  const min = valueExpr(store, src, minName(output));
+  const max = valueExpr(store, src, maxName(output));
+  const x = valueExpr(store, src, xName);
+  const by = seriesBy ? valueExpr(store, src, seriesBy) : undefined;
+  const rows = await d.all<{ m: number; x: unknown; p: number; lo: unknown; hi: unknown; v?: unknown }>(
+    `select ${col(src, 'method')} as m, ${x.sql} as x, ${col(src, 'point')} as p, ${min.sql} as lo, ${max.sql} as hi${by ? `, ${by.sql} as v` : ''}
+     from ${src.from} where ${[...cond.sql, d.isNumber(min.sql)].join(' and ')} order by ${col(src, 'seq')} limit ${MAX_UNREACHED + 1}`,
+    [...x.params, ...min.params, ...max.params, ...(by?.params ?? []), ...cond.params, ...min.params],
+  );
+  const unreached: UnreachedPoint[] = rows.slice(0, MAX_UNREACHED).map((r) => ({
+    method: src.run.methods[Number(r.m)].id,
+    ...(by ? { value: seriesValue(r.v) } : {}),
+    x: finiteOrNull(r.x),
+    point: Number(r.p),
+    min: finiteOrNull(r.lo),
+    max: finiteOrNull(r.hi),
+  }));
+  const out: Pick<ChartData, 'unreached' | 'unreached_total'> = { unreached };
+  // Counted only when they all fit; a longer list says "more than MAX_UNREACHED" by omitting the total.
+  if (rows.length <= MAX_UNREACHED) out.unreached_total = rows.length;
   return out;
 }
 
@@ -367,10 +427,20 @@ async function axesOf(store: Store, runId: number): Promise<ChartAxes> {
   const given = (n: string) => Boolean(study && (n in study.sweep.over || n in study.inputs));
   const inputs = src.columns.inputs.filter((n) => given(n) || !src.columns.outputs.includes(n));
   const outputs = src.columns.outputs.filter((n) => !inputs.includes(n));
-  return { names: [...inputs.map((n) => facts(n, 'input')), ...outputs.map((n) => facts(n, 'output'))], sampled_points: sampledPoints };
+  const out: ChartAxes = { names: [...inputs.map((n) => facts(n, 'input')), ...outputs.map((n) => facts(n, 'output'))], sampled_points: sampledPoints };
+  const target = targetFacts(study);
+  if (target) out.target = target;
+  return out;
 }
 
-async function storedStudy(store: Store, runId: number): Promise<Study | undefined> {
+/** A study's target block, SI (undefined: none, or a file this version cannot read). */
+export function targetFacts(study: Study | undefined): TargetFacts | undefined {
+  const t = study?.design?.target;
+  return t && { output: t.output, value: t.value, adjust: t.adjust, within: [t.within[0], t.within[1]] };
+}
+
+/** The study a run was made from, as this version reads it (undefined: not stored, or unreadable). */
+export async function storedStudy(store: Store, runId: number): Promise<Study | undefined> {
   const source = await getRunSource(store, runId);
   if (!source) return undefined;
   try {

@@ -6,6 +6,7 @@ import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { hasChromium, hoverSymbol, startDashboard, tooltipOf, type Dashboard } from '../helpers/dashboard-browser.js';
+import { SERIES_COLOURS } from '../../web/src/lib/theme.js';
 
 // An invented probe sheath in the Fernbrook field station's battery-room duct, on a
 // winter night and a summer noon.
@@ -63,7 +64,7 @@ describe.skipIf(!hasChromium)('units on the run page (Chromium)', { timeout: 180
     expect(await chartTexts(page)).toContain('h [W/(m²·K)]');
 
     // A tooltip names the point's values with their units.
-    await hoverSymbol(page, '#1f4e79');
+    await hoverSymbol(page, SERIES_COLOURS[0]);
     await expect.poll(() => tooltipOf(page).textContent()).toMatch(/fluid_temperature = -?[\d.,]+ °C.*h = [\d.,]+ W\/\(m²·K\)/);
     // The crosshair read-out follows the pointer, with units.
     await expect.poll(() => page.getByTestId('crosshair').textContent()).toMatch(/fluid_temperature = -?[\d.,]+ °C · h = [\d.,]+ W\/\(m²·K\)/);

@@ -9,6 +9,7 @@ import { pathToFileURL } from 'node:url';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { hasChromium, hoverSymbol, repo, startDashboard, tooltipOf, type Dashboard } from '../helpers/dashboard-browser.js';
+import { MEASURED_COLOUR, SERIES_COLOURS } from '../../web/src/lib/theme.js';
 
 const PROBE = `name: xss-probe
 configuration: cylinder
@@ -113,7 +114,7 @@ describe.skipIf(!hasChromium)('no script from names in chart tooltips (Chromium)
     await page.getByRole('combobox', { name: 'y axis' }).selectOption('h');
     await page.getByRole('combobox', { name: 'measured data' }).selectOption({ index: 1 });
     await page.getByTestId('measured-comparison').waitFor();
-    await hoverSymbol(page, '#111827');
+    await hoverSymbol(page, MEASURED_COLOUR);
     await expect.poll(() => tooltipOf(page).textContent()).toContain(`measured: ${MEASUREMENT}`);
     // Give any handler time to fire.
     await page.waitForTimeout(500);
@@ -133,7 +134,7 @@ describe.skipIf(!hasChromium)('no script from names in chart tooltips (Chromium)
     const tips: string[] = [];
     for (let i = 0; i < 12; i++) {
       // Filled or hollow (the coil's points may carry flags).
-      if ((await hoverSymbol(page, ['#1f4e79', '#ffffff'], i).catch(() => 0)) === 0) break;
+      if ((await hoverSymbol(page, [SERIES_COLOURS[0], '#ffffff'], i).catch(() => 0)) === 0) break;
       await page.waitForTimeout(150);
       await expect.poll(() => tooltipOf(page).textContent()).toContain(FLAG);
       tips.push((await tooltipOf(page).textContent())!);

@@ -46,6 +46,7 @@ const router = createHashRouter([
       { path: '/studies', element: <StudiesPage /> },
       { path: '/studies/:id', lazy: page(() => import('./routes/StudyPage.js'), 'StudyPage') },
       { path: '/runs/:id', lazy: page(() => import('./routes/RunPage.js'), 'RunPage') },
+      { path: '/runs/:id/points/:point', lazy: page(() => import('./routes/PointPage.js'), 'PointPage') },
       { path: '/compare', lazy: page(() => import('./routes/ComparePage.js'), 'ComparePage') },
       { path: '/catalogue', lazy: page(() => import('./routes/CataloguePage.js'), 'CataloguePage') },
       { path: '/measurements/:id', lazy: page(() => import('./routes/MeasurementPage.js'), 'MeasurementPage') },

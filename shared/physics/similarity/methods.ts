@@ -43,8 +43,12 @@ const BLOWING_NOTE =
 
 // -------------------------------------------------------------------------- input checks
 
+/** Input names per method, built once (the methods are evaluated in hot loops). */
+const inputNames = new WeakMap<object, Set<string>>();
+
 function readNumbers(method: { id: string; configuration: string; inputs: InputSpec[] }, inputs: Inputs): Record<string, number> {
-  const known = new Set(method.inputs.map((s) => s.name));
+  let known = inputNames.get(method);
+  if (!known) inputNames.set(method, (known = new Set(method.inputs.map((s) => s.name))));
   for (const name of Object.keys(inputs)) {
     if (name === 'profiles') {
       if (typeof inputs.profiles !== 'boolean') throw new InputError(`input 'profiles' must be true or false`);

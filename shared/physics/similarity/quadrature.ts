@@ -19,27 +19,43 @@ const WG = [
   0.381830050505118944950369775488975, 0.417959183673469387755102040816327,
 ];
 
-interface Panel {
-  a: number;
-  b: number;
-  value: number;
-  error: number;
+/** Panels as parallel arrays (no object per panel: the quadrature runs in hot loops). */
+class Panels {
+  a: Float64Array;
+  b: Float64Array;
+  value: Float64Array;
+  error: Float64Array;
+  count = 0;
+
+  constructor(capacity: number) {
+    this.a = new Float64Array(capacity);
+    this.b = new Float64Array(capacity);
+    this.value = new Float64Array(capacity);
+    this.error = new Float64Array(capacity);
+  }
+
+  /** Integrates fn over [a, b] with the 7/15 pair into panel i. */
+  set(i: number, fn: (x: number) => number, a: number, b: number): void {
+    const c = 0.5 * (a + b);
+    const r = 0.5 * (b - a);
+    const fc = fn(c);
+    let kronrod = fc * WGK[7];
+    let gauss = fc * WG[3];
+    for (let j = 0; j < 7; j++) {
+      const dx = r * XGK[j];
+      const s = fn(c - dx) + fn(c + dx);
+      kronrod += WGK[j] * s;
+      if (j % 2 === 1) gauss += WG[(j - 1) / 2] * s;
+    }
+    this.a[i] = a;
+    this.b[i] = b;
+    this.value[i] = kronrod * r;
+    this.error[i] = Math.abs((kronrod - gauss) * r);
+  }
 }
 
-function gk15(fn: (x: number) => number, a: number, b: number): Panel {
-  const c = 0.5 * (a + b);
-  const r = 0.5 * (b - a);
-  const fc = fn(c);
-  let kronrod = fc * WGK[7];
-  let gauss = fc * WG[3];
-  for (let j = 0; j < 7; j++) {
-    const dx = r * XGK[j];
-    const s = fn(c - dx) + fn(c + dx);
-    kronrod += WGK[j] * s;
-    if (j % 2 === 1) gauss += WG[(j - 1) / 2] * s;
-  }
-  return { a, b, value: kronrod * r, error: Math.abs((kronrod - gauss) * r) };
-}
+/** Reused between calls; a nested call (an integrand that integrates) gets its own. */
+let pool: Panels | undefined = new Panels(256);
 
 export interface QuadratureResult {
   value: number;
@@ -59,35 +75,62 @@ export function adaptiveQuadrature(
   absTol = 0,
   maxPanels = 4000,
 ): QuadratureResult {
-  const panels: Panel[] = [];
-  for (let i = 0; i + 1 < points.length; i++) if (points[i + 1] > points[i]) panels.push(gk15(fn, points[i], points[i + 1]));
+  const panels = pool ?? new Panels(256);
+  pool = undefined;
+  try {
+    return integrate(panels, fn, points, relTol, absTol, maxPanels);
+  } finally {
+    panels.count = 0;
+    pool = panels;
+  }
+}
+
+function integrate(p: Panels, fn: (x: number) => number, points: readonly number[], relTol: number, absTol: number, maxPanels: number): QuadratureResult {
+  for (let i = 0; i + 1 < points.length; i++) {
+    if (points[i + 1] > points[i]) {
+      grow(p, p.count + 1);
+      p.set(p.count++, fn, points[i], points[i + 1]);
+    }
+  }
   let value = 0;
   let error = 0;
-  for (const p of panels) {
-    value += p.value;
-    error += p.error;
+  for (let i = 0; i < p.count; i++) {
+    value += p.value[i];
+    error += p.error[i];
   }
   while (error > Math.max(absTol, relTol * Math.abs(value))) {
-    if (panels.length >= maxPanels) return { value, error, converged: false };
+    if (p.count >= maxPanels) return { value, error, converged: false };
     let worst = 0;
-    for (let i = 1; i < panels.length; i++) if (panels[i].error > panels[worst].error) worst = i;
-    const p = panels[worst];
-    const mid = 0.5 * (p.a + p.b);
-    if (mid <= p.a || mid >= p.b) return { value, error, converged: false };
-    const left = gk15(fn, p.a, mid);
-    const right = gk15(fn, mid, p.b);
-    panels[worst] = left;
-    panels.push(right);
-    value += left.value + right.value - p.value;
-    error += left.error + right.error - p.error;
+    for (let i = 1; i < p.count; i++) if (p.error[i] > p.error[worst]) worst = i;
+    const a = p.a[worst];
+    const b = p.b[worst];
+    const oldValue = p.value[worst];
+    const oldError = p.error[worst];
+    const mid = 0.5 * (a + b);
+    if (mid <= a || mid >= b) return { value, error, converged: false };
+    grow(p, p.count + 1);
+    p.set(worst, fn, a, mid);
+    p.set(p.count++, fn, mid, b);
+    value += p.value[worst] + p.value[p.count - 1] - oldValue;
+    error += p.error[worst] + p.error[p.count - 1] - oldError;
     if (!Number.isFinite(value)) return { value, error, converged: false };
   }
   // Re-add from scratch so the running updates leave no rounding drift.
   value = 0;
   error = 0;
-  for (const q of panels) {
-    value += q.value;
-    error += q.error;
+  for (let i = 0; i < p.count; i++) {
+    value += p.value[i];
+    error += p.error[i];
   }
   return { value, error, converged: Number.isFinite(value) };
+}
+
+function grow(p: Panels, needed: number): void {
+  if (needed <= p.a.length) return;
+  const size = Math.max(needed, 2 * p.a.length);
+  for (const key of ['a', 'b', 'value', 'error'] as const) {
+    const next = new Float64Array(size);
+    next.set(p[key]);
+    p[key] = next;
+  }
 }

@@ -12,7 +12,8 @@ import { solveCounts } from './cache.js';
 
 /** Exponent at which e^{−x} no longer matters next to 1 (e^{−60} ≈ 1e-26). */
 const NEGLIGIBLE_EXPONENT = 60;
-const REL_TOL = 1e-12;
+/** Quadrature tolerance on the |Kronrod − Gauss| estimate, which overstates the error by orders. */
+const REL_TOL = 1e-11;
 /** e^{−745} is below the smallest subnormal double. */
 const UNDERFLOW_EXPONENT = 745;
 
@@ -32,9 +33,9 @@ export interface ExpIntegral {
 export function expIntegral(trace: SolutionTrace, P: number, a: number, Fref: number, etaMin: number, gAtMin: number): ExpIntegral {
   const edge = trace.lastEta;
   const n = trace.length;
-  const ge = trace.d[2][n - 1];
+  const ge = trace.node(2, n - 1);
   if (a >= edge) {
-    const fa = trace.d[1][n - 1] + ge * (a - edge);
+    const fa = trace.node(1, n - 1) + ge * (a - edge);
     const t = outerIntegral(P, fa, ge);
     return { value: Math.exp(-P * (trace.F(a) - Fref)) * t.value, converged: t.converged };
   }
@@ -49,49 +50,80 @@ export function expIntegral(trace: SolutionTrace, P: number, a: number, Fref: nu
     points.push(etaMin);
     for (let w = sigma / 4; w <= 64 * sigma; w *= 4) if (etaMin + w < end) points.push(etaMin + w);
   }
-  // Grade towards the start, where the integrand is largest, so no scale is stepped over.
-  const length = end - start;
-  for (let k = 12; k >= 1; k--) {
-    const x = start + length * Math.pow(0.25, k);
+  // Grade from the start, where the integrand is largest, in steps of four from a quarter of its
+  // first e-folding length, so that no scale is stepped over.
+  for (let x = start + 0.25 * eFoldLength(trace, P, start); x < end; x = start + 4 * (x - start)) {
     if (x > points[points.length - 1]) points.push(x);
   }
   if (end > points[points.length - 1]) points.push(end);
   const inner = adaptiveQuadrature(integrand, points, REL_TOL);
   let value = inner.value;
   let converged = inner.converged;
-  const exponentAtEdge = P * (trace.d[0][n - 1] - Fref);
+  const exponentAtEdge = P * (trace.node(0, n - 1) - Fref);
   if (exponentAtEdge < NEGLIGIBLE_EXPONENT + 10) {
-    const t = outerIntegral(P, trace.d[1][n - 1], ge);
-    value += Math.exp(-exponentAtEdge) * t.value;
+    // The outer part only needs the accuracy its weight e^{−exponent} leaves to the sum.
+    const weight = Math.exp(-exponentAtEdge);
+    const t = outerIntegral(P, trace.node(1, n - 1), ge, (REL_TOL * value) / weight);
+    value += weight * t.value;
     converged = converged && t.converged;
   }
   return { value, converged };
 }
 
-/** ∫₀^∞ exp(−P (f_a τ + g τ²/2)) dτ: the outer flow, where f'' = 0 and f' = g. */
-function outerIntegral(P: number, fa: number, g: number): ExpIntegral {
+/**
+ * ∫₀^∞ exp(−P (f_a τ + g τ²/2)) dτ: the outer flow, where f'' = 0 and f' = g, to an absolute
+ * accuracy `absTol` (relative REL_TOL when not given). It equals √(π/(2Pg))·erfcx(f_a√(P/(2g)));
+ * for a large argument x the asymptotic series of erfcx (Abramowitz & Stegun 7.1.23) gives
+ * (1/(P f_a))·Σ (−1)ⁿ (2n−1)!!/(2x²)ⁿ, used when its smallest term is within the tolerance.
+ */
+function outerIntegral(P: number, fa: number, g: number, absTol = 0): ExpIntegral {
+  const leading = 1 / (P * fa);
+  if (g > 0 && fa > 0 && absTol > 0) {
+    const twoX2 = (fa * fa * P) / g;
+    let term = 1;
+    let sum = 1;
+    for (let k = 1; k < 60; k++) {
+      const next = (-term * (2 * k - 1)) / twoX2;
+      if (Math.abs(next) >= Math.abs(term)) break; // the series starts to diverge
+      term = next;
+      sum += term;
+      if (Math.abs(term) * leading < 0.1 * absTol) return { value: sum * leading, converged: true };
+    }
+  }
   // P (f_a τ + g τ²/2) reaches the negligible exponent at τ_end.
   const need = NEGLIGIBLE_EXPONENT / P;
   const tauEnd = g > 0 ? (2 * need) / (fa + Math.sqrt(fa * fa + 2 * g * need)) : need / fa;
   if (!(tauEnd > 0) || !Number.isFinite(tauEnd)) return { value: NaN, converged: false };
+  // Breakpoints from a quarter of the first e-folding length, in steps of four.
   const points = [0];
-  for (let k = 12; k >= 0; k--) points.push(tauEnd * Math.pow(0.25, k));
-  const q = adaptiveQuadrature((t) => Math.exp(-P * t * (fa + 0.5 * g * t)), points, REL_TOL);
+  for (let t = 0.25 * Math.min(1 / (P * Math.abs(fa)), Math.sqrt(2 / (P * Math.abs(g)))); t < tauEnd; t *= 4) points.push(t);
+  points.push(tauEnd);
+  const q = adaptiveQuadrature((t) => Math.exp(-P * t * (fa + 0.5 * g * t)), points, REL_TOL, absTol);
   return { value: q.value, converged: q.converged };
+}
+
+/**
+ * Length over which P·(F − F(start)) first grows by one, from the local Taylor terms of F at
+ * `start` (the smallest of the lengths at which each term alone reaches one).
+ */
+function eFoldLength(trace: SolutionTrace, P: number, start: number): number {
+  const f = Math.abs(trace.derivative(1, start));
+  const g = Math.abs(trace.derivative(2, start));
+  const h = Math.abs(trace.derivative(3, start));
+  return Math.min(1 / (P * f), Math.sqrt(2 / (P * g)), Math.cbrt(6 / (P * h)));
 }
 
 /** Smallest η ≥ start (to node precision) beyond which P·(F − Fref) exceeds the negligible exponent. */
 function negligibleFrom(trace: SolutionTrace, P: number, start: number, Fref: number): number {
   const target = Fref + NEGLIGIBLE_EXPONENT / P;
-  const F = trace.d[0];
   const n = trace.length;
-  if (F[n - 1] < target) return trace.lastEta;
+  if (trace.node(0, n - 1) < target) return trace.lastEta;
   // F increases beyond the minimum: binary search the nodes.
   let lo = trace.interval(start);
   let hi = n - 1;
   while (hi - lo > 1) {
     const mid = (lo + hi) >> 1;
-    if (F[mid] < target) lo = mid;
+    if (trace.node(0, mid) < target) lo = mid;
     else hi = mid;
   }
   return Math.max(trace.eta[hi], start);

@@ -36,9 +36,11 @@ interface Props<T> {
   rowClassName?: (row: T) => string;
   /** Column sorting on (default) or off (for server lists that have no sort). */
   sortable?: boolean;
+  /** A click on a row (outside its links and buttons) opens what the row stands for. */
+  onRowClick?: (row: T) => void;
 }
 
-export function DataTable<T>({ columns, data, label, empty = 'Nothing here yet.', server, pageSize = 100, busy, rowClassName, sortable = true }: Props<T>) {
+export function DataTable<T>({ columns, data, label, empty = 'Nothing here yet.', server, pageSize = 100, busy, rowClassName, sortable = true, onRowClick }: Props<T>) {
   const [sorting, setSorting] = useState<SortingState>([]);
   const table = useReactTable({
     data,
@@ -99,7 +101,18 @@ export function DataTable<T>({ columns, data, label, empty = 'Nothing here yet.'
           </thead>
           <tbody>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className={rowClassName?.(row.original)}>
+              <tr
+                key={row.id}
+                className={[rowClassName?.(row.original), onRowClick ? 'cursor-pointer' : ''].filter(Boolean).join(' ') || undefined}
+                onClick={
+                  onRowClick &&
+                  ((e) => {
+                    // Links and buttons in the row do their own thing.
+                    if ((e.target as HTMLElement).closest('a, button, input, select')) return;
+                    onRowClick(row.original);
+                  })
+                }
+              >
                 {row.getVisibleCells().map((cell) => {
                   const meta = cell.column.columnDef.meta as { numeric?: boolean } | undefined;
                   return (

@@ -1,6 +1,8 @@
 // A run's results, paged, sorted and filtered on the server. Headers carry units, values
 // are shown in the user's units, and each flag says what broke there (`Re 5,000 > 2,300`).
+// A row (or its point number) opens the point view: every method at that point.
 import { useMemo } from 'react';
+import { Link, useNavigate } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
 import { describeFlag } from '../../../shared/chart/flags.js';
 import { useCatalogue } from '../api/methods.js';
@@ -35,12 +37,18 @@ function Header({ name, output, quantities }: { name: string; output?: boolean; 
 
 export function ResultsTable({ run, query, onQuery, columns, live, quantities }: Props) {
   const results = useResults(run.id, query, live);
+  const navigate = useNavigate();
+  const pointPath = (point: number) => `/runs/${run.id}/points/${point}`;
   const catalogue = useCatalogue();
   const defs = useMemo(() => {
     const shown = (name: string) => (v: unknown) => formatValue(typeof v === 'number' ? quantities(name).toDisplay(v) : v);
     const ranges = (method: string) => catalogue.data?.methods.find((m) => m.configuration === run.configuration && m.id === method)?.ranges;
     return [
-      col.accessor('point', { header: 'point', meta: { numeric: true } }),
+      col.accessor('point', {
+        header: 'point',
+        meta: { numeric: true },
+        cell: (c) => <Link className="link" to={pointPath(c.getValue())} title={`Every method at point ${c.getValue()}`}>{c.getValue()}</Link>,
+      }),
       col.accessor('method', { header: 'method', cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
       // An output wins over an input of the same name, as in the API.
       ...columns.inputs.filter((n) => !columns.outputs.includes(n)).map((n) =>
@@ -63,7 +71,7 @@ export function ResultsTable({ run, query, onQuery, columns, live, quantities }:
         ),
       }),
     ];
-  }, [columns, quantities, catalogue.data, run.configuration]);
+  }, [columns, quantities, catalogue.data, run.configuration, run.id]);
 
   if (results.isPending) return <Loading what="Loading results" />;
   if (results.isError) return <ErrorNote error={results.error} title="The results could not be loaded" />;
@@ -76,6 +84,7 @@ export function ResultsTable({ run, query, onQuery, columns, live, quantities }:
       busy={results.isFetching && results.isPlaceholderData}
       empty={live ? 'No result matches yet; the run is still writing.' : 'No result matches these filters.'}
       rowClassName={(r) => (r.flags.length ? 'bg-copper-100/25' : '')}
+      onRowClick={(r) => navigate(pointPath(r.point))}
       server={{
         total: page.total,
         page: query.page,

@@ -5,16 +5,17 @@
 // parity plot; a crosshair read-out; exports as SVG/PNG. Its choices belong to this run
 // (RunPage mounts a fresh one per run).
 import { useId, useMemo, useState } from 'react';
+import { useNavigate } from 'react-router-dom';
 import type { Measurement } from '../api/measurements.js';
 import { useCatalogue } from '../api/methods.js';
 import { useChart, useChartAxes } from '../api/runs.js';
 import type { AxisFacts, ChartData, RunInfo } from '../api/types.js';
 import { defaultChoice, numeric, secondInputs, seriesProblem, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
 import { exportChart, exportTitle } from '../lib/chart-export.js';
-import { autoLog, buildChartOption, hiddenOnLogAxes, type ChartLook } from '../lib/chart-option.js';
+import { autoLog, buildChartOption, EVERY_METHOD, hiddenOnLogAxes, type ChartLook } from '../lib/chart-option.js';
 import { formatCount, formatNumber } from '../lib/format.js';
 import type { ChartQuery, FlaggedFilter, RangeFilter } from '../lib/result-query.js';
-import { labelWithUnit, type Quantities } from '../lib/units.js';
+import { formatQuantity, labelWithUnit, type Quantities } from '../lib/units.js';
 import { EChart, type PointerAt } from './EChart.js';
 import { MeasuredComparison } from './MeasuredComparison.js';
 import { Empty, ErrorNote, Loading } from './States.js';
@@ -37,15 +38,18 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
   const facts = axes.data?.names ?? [];
   const [chosen, setChosen] = useState<Partial<ChartChoice>>({});
   const [logChoice, setLogChoice] = useState<{ x?: boolean; y?: boolean }>({});
-  const [band, setBand] = useState('');
+  // undefined: the default, every method's stored band where the run has one for y, else none.
+  const [band, setBand] = useState<string | undefined>(undefined);
+  const navigate = useNavigate();
   const [measurement, setMeasurement] = useState('');
   const [pointer, setPointer] = useState<PointerAt | null>(null);
 
   // Defaults follow the facts (a live run gains names) until the user picks.
-  const defaults = useMemo(() => defaultChoice(facts, regime), [axes.data, regime]);
+  const target = axes.data?.target;
+  const drawnMethods = methods.length || run.methods.length;
+  const defaults = useMemo(() => defaultChoice(facts, regime, target, drawnMethods), [axes.data, regime, drawnMethods]);
   const choice: ChartChoice = { ...defaults, ...chosen };
   if (choice.by !== 'method' && (choice.by === choice.x || !facts.some((f) => f.name === choice.by))) choice.by = 'method';
-  const drawnMethods = methods.length || run.methods.length;
   const problem = facts.length ? seriesProblem(facts, choice, drawnMethods) : null;
   const query: ChartQuery | null =
     choice.x && choice.y && !problem
@@ -54,8 +58,12 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
   const chart = useChart(run.id, query, live);
   const data = chart.data;
   const auto = useMemo(() => (data ? autoLog(data, quantities) : { x: true, y: true }), [data, quantities]);
-  const look: ChartLook = { xLog: logChoice.x ?? auto.x, yLog: logChoice.y ?? auto.y, bandMethod: band || null, quantities, layout: choice.layout };
-  const option = useMemo(() => (data ? buildChartOption(data, look) : null), [data, look.xLog, look.yLog, band, quantities, choice.layout]);
+  const storedBand = Boolean(data?.band_of && data.band_of === data.y);
+  const bandShown = band ?? (storedBand ? EVERY_METHOD : '');
+  const look: ChartLook = { xLog: logChoice.x ?? auto.x, yLog: logChoice.y ?? auto.y, bandMethod: bandShown || null, quantities, layout: choice.layout, target };
+  const option = useMemo(() => (data ? buildChartOption(data, look) : null), [data, look.xLog, look.yLog, bandShown, quantities, choice.layout, target]);
+  const unreached = data?.unreached ?? [];
+  const unplacedMisses = unreached.filter((u) => u.x === null).length;
   const hidden = data ? hiddenOnLogAxes(data, look) : 0;
   const panels = data && data.series_by !== 'method' && choice.layout === 'panels' ? new Set(data.series.map((s) => s.value)).size : 1;
   const choose = (patch: Partial<ChartChoice>) => {
@@ -124,11 +132,21 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
         </fieldset>
         <div>
           <label htmlFor={`${id}-band`} className="field-label">uncertainty band</label>
-          <select id={`${id}-band`} className="input w-auto" value={band} onChange={(e) => setBand(e.target.value)}>
+          <select id={`${id}-band`} className="input w-auto" value={bandShown} onChange={(e) => setBand(e.target.value)}>
             <option value="">none</option>
-            {Object.entries(data?.uncertainty ?? {}).map(([m, f]) => (
-              <option key={m} value={m}>{m} (±{formatNumber(f * 100, 3)} %)</option>
-            ))}
+            {storedBand ? (
+              <>
+                <option value={EVERY_METHOD}>every method (stored 95 % bands)</option>
+                {Object.keys(data?.uncertainty ?? {}).map((m) => <option key={m} value={m}>{m} (stored 95 % band)</option>)}
+              </>
+            ) : (
+              <>
+                <option value={EVERY_METHOD}>every method (± stated uncertainty)</option>
+                {Object.entries(data?.uncertainty ?? {}).map(([m, f]) => (
+                  <option key={m} value={m}>{m} (±{formatNumber(f * 100, 3)} %)</option>
+                ))}
+              </>
+            )}
           </select>
         </div>
         <div>
@@ -167,6 +185,10 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
             height={panels > 1 ? 240 * Math.ceil(panels / (panels <= 2 ? panels : panels <= 4 ? 2 : panels <= 9 ? 3 : 4)) + 60 : 460}
             label={what}
             onPointer={setPointer}
+            onItemClick={(item) => {
+              const point = (item.data as { point?: unknown } | null)?.point;
+              if (typeof point === 'number') navigate(`/runs/${run.id}/points/${point}`);
+            }}
           />
           <p className="min-h-5 font-mono text-xs text-ink-700" data-testid="crosshair" aria-live="off">
             {pointer ? `${data!.x} = ${formatNumber(pointer.x, 4)} ${quantities(data!.x).unit} · ${data!.y} = ${formatNumber(pointer.y, 4)} ${quantities(data!.y).unit}`.replace(/ [-?](?= ·|$)/g, '') : 'Point at the chart to read x and y.'}
@@ -176,8 +198,18 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
             {data!.sampled ? ` · drawn from a fixed sample of ${formatCount(data!.sampled)} results${data!.total_estimated ? ' (the count is estimated from it; the table counts exactly)' : ''}, keeping the lowest and highest of each stretch along x; the table and exports have every result` : data!.downsampled ? ' · thinned for display (the lowest and highest of each stretch along x are kept; the table and exports have every result)' : ''}
             {hidden ? ` · ${formatCount(hidden)} points with zero or negative values cannot be shown on log axes` : ''}
             {data!.flag_details.length || data!.series.some((s) => s.points.some((p) => p[2])) ? ' · ◇ hollow diamonds are flagged results (outside a validity range; point at one to see which)' : ''}
-            {band && !(option!.series as { stack?: string }[]).some((x) => x.stack) ? ' · the band needs one value per x: split the series by the other swept input' : ''}
+            {bandShown && !(option!.series as { stack?: string }[]).some((x) => x.stack) ? ' · the band needs one value per x: split the series by the other swept input' : ''}
+            {bandShown && storedBand ? ' · shaded: the stored 95 % band (2.5 % to 97.5 % points) of each point' : ''}
+            {' · click a point for every method there'}
           </p>
+          {unreached.length > 0 && (
+            <p className="text-xs text-copper-700" data-testid="unreached-note">
+              {data!.unreached_total === undefined ? `More than ${formatCount(unreached.length)}` : formatCount(unreached.length)} result{unreached.length === 1 ? '' : 's'} did not reach the target
+              {target ? ` (${target.output} = ${formatQuantity(quantities(target.output), target.value)} with ${target.adjust} in ${formatQuantity(quantities(target.adjust), target.within[0])} … ${formatQuantity(quantities(target.adjust), target.within[1])})` : ''}
+              {unplacedMisses < unreached.length ? ': dashed rules mark their x (point at one for what each method could reach)' : ''}
+              {unplacedMisses > 0 ? `${unplacedMisses < unreached.length ? '; ' : ': '}${formatCount(unplacedMisses)} have no ${data!.x} to be placed by (put an input on x; the results table lists them, flagged target-not-reached)` : ''}.
+            </p>
+          )}
         </>
       )}
       {data && data.left_out.length > 0 && <LeftOutNote data={data} onPlot={(name) => choose({ y: name })} />}

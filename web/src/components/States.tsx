@@ -36,3 +36,12 @@ export function ErrorNote({ error, title = 'Something went wrong' }: { error: un
 export function Notice({ children }: { children: ReactNode }) {
   return <div role="status" className="rounded-[3px] border-l-[3px] border-moss-700 bg-moss-100 px-3 py-2 text-sm text-moss-700">{children}</div>;
 }
+
+/** An address that names nothing (/runs/-1, /runs/abc): said at once, nothing asked of the API. */
+export function BadAddress({ what }: { what: string }) {
+  return (
+    <div role="alert" className="rounded-[3px] border-l-[3px] border-brick-700 bg-brick-100 px-3 py-2 text-sm text-brick-700">
+      <strong className="font-semibold">Not found.</strong> This address names no {what}: {what} numbers are whole numbers from 1.
+    </div>
+  );
+}

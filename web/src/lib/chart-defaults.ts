@@ -2,6 +2,9 @@
 // (GET /api/runs/:id/chart/axes): x is the trade's usual abscissa when it varies (Re for
 // forced convection, Ra for free), else the swept input with the widest range; y is Nu,
 // else h (never a constant); a second swept input with few values becomes line styles.
+// A target run starts on its answer instead: the solved input (y) against the swept input
+// with the widest range (x).
+import type { TargetFacts } from '../../../shared/chart/types.js';
 import type { AxisFacts } from '../api/types.js';
 
 /** A second input drawn as line styles and markers: at most this many values. */
@@ -37,11 +40,17 @@ function spread(f: AxisFacts): number {
   return f.min > 0 ? Math.log10(f.max / f.min) : 1;
 }
 
-export function defaultChoice(facts: readonly AxisFacts[], regime: string | undefined): ChartChoice {
+/** `methods`: how many methods draw; a split that would pass MAX_DRAWN_SERIES is not a default. */
+export function defaultChoice(facts: readonly AxisFacts[], regime: string | undefined, target?: TargetFacts, methods = 1): ChartChoice {
   const byName = new Map(facts.map((f) => [f.name, f]));
   const classic = regime === 'free' ? ['Ra', 'Gr'] : regime ? ['Re'] : ['Re', 'Ra'];
   const swept = facts.filter((f) => f.role === 'input' && varies(f));
   const widest = [...swept].sort((a, b) => spread(b) - spread(a))[0];
+  const solved = target && byName.get(target.adjust);
+  if (solved && numeric(solved) && (widest || swept.length === 0)) {
+    const x = widest?.name ?? facts.find((f) => f.name !== solved.name && varies(f))?.name ?? facts.find((f) => f.name !== solved.name)?.name ?? '';
+    return { x, y: solved.name, by: secondBy(facts, swept, x, methods), layout: 'style' };
+  }
   const x =
     classic.find((n) => varies(byName.get(n))) ??
     widest?.name ??
@@ -54,10 +63,17 @@ export function defaultChoice(facts: readonly AxisFacts[], regime: string | unde
     outputs.find((f) => varies(f))?.name ??
     outputs[0]?.name ??
     '';
+  return { x, y, by: secondBy(facts, swept, x, methods), layout: 'style' };
+}
+
+/** The second input that splits the series by default, or `method`. */
+function secondBy(facts: readonly AxisFacts[], swept: readonly AxisFacts[], x: string, methods: number): string {
   // With one swept input, x is that input or derived from it alone: splitting by it would
   // leave one point per series.
   const second = swept.length + secondInputs(facts, x).filter((f) => !varies(f)).length >= 2 ? secondInputs(facts, x).sort((a, b) => a.distinct - b.distinct)[0] : undefined;
-  return { x, y, by: second && second.distinct <= MAX_STYLED_VALUES ? second.name : 'method', layout: 'style' };
+  // A default never lands on the "too many series" message: eight pipe methods × five Pr
+  // values start as one series per method.
+  return second && second.distinct <= MAX_STYLED_VALUES && second.distinct * Math.max(1, methods) <= MAX_DRAWN_SERIES ? second.name : 'method';
 }
 
 /** Inputs that can split the series: swept, not x, a countable number of values (numbers or choices). */

@@ -6,8 +6,12 @@
 // measured points on top; log axes with labels between decades; a crosshair on both
 // axes. Exports add a title, subtitle and the caution, and keep the band and the
 // measured data in the legend. Every user-controlled string that reaches the tooltip
-// (HTML) goes through escapeHtml.
+// (HTML) goes through escapeHtml. Runs with stored bands (`<y>_low`, `<y>_high`) draw them
+// per method instead of the ±fraction; a target run marks the x where a method did not
+// reach the target with a dashed rule whose tooltip gives what was reachable. Every
+// drawn point carries its point index, so a click opens the point view.
 import type { EChartsCoreOption } from 'echarts/core';
+import type { TargetFacts, UnreachedPoint } from '../../../shared/chart/types.js';
 import type { ChartData, ChartSeries, FlagDetail } from '../api/types.js';
 import type { SeriesLayout } from './chart-defaults.js';
 import { escapeHtml } from './escape-html.js';
@@ -32,11 +36,21 @@ export const CHART_FONT = FONT_SANS;
 export const VALUE_SYMBOLS = ['circle', 'rect', 'triangle', 'diamond', 'roundRect', 'pin', 'arrow', 'emptyCircle'] as const;
 export const VALUE_DASHES: (string | number[])[] = ['solid', 'dashed', 'dotted', [10, 3, 2, 3], [14, 4], [2, 5], [10, 3, 2, 3, 2, 3], [5, 2]];
 
+/** `bandMethod` for the stored bands of every method at once. */
+export const EVERY_METHOD = '*';
+/** Colour of the rules that mark where a target was not reached (the hot side's ember). */
+export const NOT_REACHED_COLOUR = PALETTE['ember-500'];
+
 export interface ChartLook {
   xLog: boolean;
   yLog: boolean;
-  /** Draw the ±fraction band of this method (from `uncertainty`), or none. */
+  /**
+   * Draw this method's band, or every method's (EVERY_METHOD), or none: the stored 95 %
+   * band where the data has one for y (`band_of`), else the ±fraction of `uncertainty`.
+   */
   bandMethod: string | null;
+  /** The run's target (chart axes), for the words of the not-reached rules. */
+  target?: TargetFacts;
   /** Units and display conversions of the run's names. */
   quantities: Quantities;
   /** Series by a second input: line styles (default) or one panel per value. */
@@ -45,7 +59,8 @@ export interface ChartLook {
   title?: { text: string; subtext: string; footer: string };
 }
 
-type Pt = [number, number, number, number?];
+/** [x, y, flagged, flag detail index, index in the API's series (for point_index and band)]. */
+type Pt = [number, number, number, number | undefined, number];
 
 const finite = (p: readonly (number | undefined)[]) => Number.isFinite(p[0]) && Number.isFinite(p[1]);
 const usable = (look: Pick<ChartLook, 'xLog' | 'yLog'>) => (p: readonly (number | undefined)[]) => finite(p) && (!look.xLog || p[0]! > 0) && (!look.yLog || p[1]! > 0);
@@ -55,7 +70,7 @@ export function displayPoints(data: ChartData, quantities: Quantities) {
   const qx = quantities(data.x);
   const qy = quantities(data.y);
   return {
-    series: data.series.map((s) => ({ ...s, points: s.points.map((p) => [qx.toDisplay(p[0]), qy.toDisplay(p[1]), p[2], p[3]] as Pt) })),
+    series: data.series.map((s) => ({ ...s, points: s.points.map((p, j) => [qx.toDisplay(p[0]), qy.toDisplay(p[1]), p[2], p[3], j] as Pt) })),
     measured: data.measured?.points.map(([x, y]) => [qx.toDisplay(x), qy.toDisplay(y)] as [number, number]) ?? [],
   };
 }
@@ -130,6 +145,26 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
     const joined = pts.every((p, j) => j === 0 || p[0] !== pts[j - 1][0]);
     const name = seriesLabel(data.series[i], by, q);
     const symbol = styled ? VALUE_SYMBOLS[k % VALUE_SYMBOLS.length] : 'circle';
+    const source = data.series[i];
+    const pointOf = (j: number) => source.point_index?.[j];
+    // Where this series' method did not reach the target, its line breaks (no value there).
+    const gaps = (data.unreached ?? [])
+      .filter((u) => u.method === s.method && u.x !== null && (!by || u.value === s.value))
+      .map((u) => qx.toDisplay(u.x!))
+      .filter((x) => (!look.xLog || x > 0) && pts.length > 0 && x > pts[0][0] && x < pts[pts.length - 1][0]);
+    const stored = data.band_of === data.y && source.band ? source.band : undefined;
+    const bandOf = (j: number) => {
+      const b = stored?.[j];
+      return b && b[0] !== null && b[1] !== null ? { band: [b[0], b[1]] } : {};
+    };
+    const items: Record<string, unknown>[] = pts.map(([x, y, flagged, detail, j]) => {
+      const point = pointOf(j);
+      if (!flagged) return { value: [x, y], point, ...bandOf(j) };
+      anyFlagged = true;
+      return { value: [x, y], point, ...bandOf(j), flagged: 1, detail, symbol: 'diamond', symbolSize: 10, itemStyle: { color: '#ffffff', borderColor: colour, borderWidth: 2 } };
+    });
+    if (joined) for (const x of gaps) items.push({ value: [x, '-'] });
+    items.sort((a, b) => (a.value as number[])[0] - (b.value as number[])[0]);
     series.push({
       type: joined ? 'line' : 'scatter',
       name,
@@ -139,20 +174,35 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
       symbolSize: joined ? 6 : 7,
       lineStyle: { width: 1.6, type: styled ? VALUE_DASHES[k % VALUE_DASHES.length] : 'solid' },
       emphasis: { focus: 'series' },
+      cursor: 'pointer',
       ...axis,
-      data: pts.map(([x, y, flagged, detail]) => {
-        if (!flagged) return { value: [x, y] };
-        anyFlagged = true;
-        return { value: [x, y], flagged: 1, detail, symbol: 'diamond', symbolSize: 10, itemStyle: { color: '#ffffff', borderColor: colour, borderWidth: 2 } };
-      }),
+      data: items,
     });
     if (!by) legendData.push(name);
-    const fraction = look.bandMethod && s.method === look.bandMethod ? data.uncertainty[s.method] : undefined;
-    if (fraction !== undefined && fraction > 0 && joined && pts.length > 1) {
+    const wanted = look.bandMethod === EVERY_METHOD || s.method === look.bandMethod;
+    if (wanted && joined && pts.length > 1) {
       const stack = `band-${i}`;
-      const common = { type: 'line', name: bandName(s.method, fraction), stack, color: colour, symbol: 'none', silent: true, lineStyle: { opacity: 0 }, ...axis };
-      series.push({ ...common, data: pts.map(([x, y]) => [x, y * (1 - fraction)]) });
-      series.push({ ...common, areaStyle: { opacity: 0.16, color: colour }, data: pts.map(([x, y]) => [x, 2 * y * fraction]) });
+      const common = { type: 'line', name: '', stack, color: colour, symbol: 'none', silent: true, lineStyle: { opacity: 0 }, ...axis };
+      if (stored) {
+        // The stored 2.5 % and 97.5 % points, drawn as low plus a stacked (high − low).
+        const edges = pts
+          .map(([x, , , , j]) => [x, stored[j]?.[0], stored[j]?.[1]] as const)
+          .filter((e): e is readonly [number, number, number] => e[1] !== null && e[1] !== undefined && e[2] !== null && e[2] !== undefined)
+          .map(([x, lo, hi]) => [x, qy.toDisplay(lo), qy.toDisplay(hi)] as const)
+          .filter(([, lo, hi]) => hi >= lo && (!look.yLog || lo > 0));
+        if (edges.length > 1) {
+          const label = storedBandName(look.bandMethod === EVERY_METHOD ? null : s.method);
+          series.push({ ...common, name: label, data: edges.map(([x, lo]) => [x, lo]) });
+          series.push({ ...common, name: label, areaStyle: { opacity: look.bandMethod === EVERY_METHOD ? 0.12 : 0.18, color: colour }, data: edges.map(([x, lo, hi]) => [x, hi - lo]) });
+        }
+      } else if (data.band_of !== data.y) {
+        const fraction = data.uncertainty[s.method];
+        if (fraction !== undefined && fraction > 0) {
+          const label = look.bandMethod === EVERY_METHOD ? EVERY_FRACTION_BAND : bandName(s.method, fraction);
+          series.push({ ...common, name: label, data: pts.map(([x, y]) => [x, y * (1 - fraction)]) });
+          series.push({ ...common, name: label, areaStyle: { opacity: 0.16, color: colour }, data: pts.map(([x, y]) => [x, 2 * y * fraction]) });
+        }
+      }
     }
   });
 
@@ -172,9 +222,49 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
     }
   }
   if (look.bandMethod && series.some((s) => s.stack)) {
-    const fraction = data.uncertainty[look.bandMethod];
-    series.push({ type: 'line', name: bandName(look.bandMethod, fraction), color: colourOf(look.bandMethod), symbol: 'none', lineStyle: { opacity: 0 }, areaStyle: { opacity: 0.16 }, data: [] });
-    legendData.push({ name: bandName(look.bandMethod, fraction), icon: 'rect' });
+    const every = look.bandMethod === EVERY_METHOD;
+    const stored = data.band_of === data.y;
+    const name = stored ? storedBandName(every ? null : look.bandMethod) : every ? EVERY_FRACTION_BAND : bandName(look.bandMethod, data.uncertainty[look.bandMethod]);
+    const colour = every ? KEY_COLOUR : colourOf(look.bandMethod);
+    series.push({ type: 'line', name, color: colour, symbol: 'none', lineStyle: { opacity: 0 }, areaStyle: { opacity: 0.16 }, data: [] });
+    legendData.push({ name, icon: 'rect' });
+  }
+  // Where a method did not reach the target: a dashed rule at that x (one per x and panel),
+  // whose tooltip lists the methods and what they could reach.
+  const unreached = (data.unreached ?? []).filter((u) => u.x !== null && (!look.xLog || qx.toDisplay(u.x) > 0));
+  if (unreached.length) {
+    const groups = new Map<string, { x: number; panel: number; points: UnreachedPoint[] }>();
+    for (const u of unreached) {
+      const panel = panels ? Math.max(0, valueIndex(u.value ?? null)) : 0;
+      const x = qx.toDisplay(u.x!);
+      const key = `${panel}:${x}`;
+      const g = groups.get(key) ?? { x, panel, points: [] };
+      g.points.push(u);
+      groups.set(key, g);
+    }
+    const perPanel = new Map<number, { x: number; points: UnreachedPoint[] }[]>();
+    for (const g of groups.values()) perPanel.set(g.panel, [...(perPanel.get(g.panel) ?? []), g]);
+    for (const [panel, list] of perPanel) {
+      series.push({
+        type: 'line',
+        name: NOT_REACHED,
+        color: NOT_REACHED_COLOUR,
+        data: [],
+        ...(panels ? { xAxisIndex: panel, yAxisIndex: panel } : {}),
+        markLine: {
+          symbol: 'none',
+          silent: false,
+          animation: false,
+          // Mark lines round their value to `precision` places (default 2), also where they are drawn.
+          precision: 15,
+          label: { show: false },
+          lineStyle: { type: 'dashed', color: NOT_REACHED_COLOUR, width: 1.4 },
+          emphasis: { lineStyle: { width: 2.4 } },
+          data: list.map((g) => ({ xAxis: g.x, unreached: g.points })),
+        },
+      });
+    }
+    legendData.push({ name: NOT_REACHED, icon: 'path://M0,4 h3 v2 h-3 z M5,4 h3 v2 h-3 z M10,4 h3 v2 h-3 z' });
   }
   if (anyFlagged) {
     series.push({ type: 'scatter', name: FLAGGED, symbol: 'diamond', symbolSize: 10, itemStyle: { color: '#ffffff', borderColor: KEY_COLOUR, borderWidth: 2 }, data: [] });
@@ -194,9 +284,11 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
 
   // Axes: shared bounds across panels, so panels compare at a glance.
   const allPts = [...shown.series.flatMap((s) => s.points.filter(ok)), ...shown.measured.filter(ok)];
-  const bounds = (k: 0 | 1, log: boolean) => axisBounds(allPts.map((p) => p[k]), log);
-  // Linear axes of a single frame keep ECharts' own round bounds.
-  const xb = look.xLog || panels ? bounds(0, look.xLog) : undefined;
+  // The not-reached rules widen x to their own x (ECharts does not count mark lines).
+  const ruleXs = unreached.map((u) => qx.toDisplay(u.x!));
+  const bounds = (k: 0 | 1, log: boolean) => axisBounds([...allPts.map((p) => p[k]), ...(k === 0 ? ruleXs : [])], log);
+  // Linear axes of a single frame keep ECharts' own round bounds (unless rules lie outside them).
+  const xb = look.xLog || panels || ruleXs.length ? bounds(0, look.xLog) : undefined;
   const yb = look.yLog || panels ? bounds(1, look.yLog) : undefined;
   const frames = layoutFrames(panelCount, legendData, Boolean(look.title));
   const axis = (quantity: Quantity, log: boolean, b: ReturnType<typeof axisBounds>, frame: number, which: 'x' | 'y') => ({
@@ -238,7 +330,7 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
     tooltip: {
       trigger: 'item',
       confine: true,
-      formatter: (p: { seriesName: string; value: number[]; data: { flagged?: number; detail?: number } | number[] }) => tooltipHtml(p, data, qx, qy, q),
+      formatter: (p: TooltipParams) => (p.componentType === 'markLine' ? unreachedHtml(p.data as { unreached?: UnreachedPoint[] }, data, look.target, qx, q) : tooltipHtml(p, data, qx, qy, q)),
     },
     xAxis: frames.map((_, k) => axis(qx, look.xLog, xb, k, 'x')),
     yAxis: frames.map((_, k) => axis(qy, look.yLog, yb, k, 'y')),
@@ -258,7 +350,10 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
 }
 
 const FLAGGED = 'flagged (outside a validity range)';
+export const NOT_REACHED = 'target not reached at this x';
 const bandName = (method: string, fraction: number) => `±${formatNumber(fraction * 100, 3)} % band: ${method}`;
+const EVERY_FRACTION_BAND = 'stated uncertainty band of each method';
+const storedBandName = (method: string | null) => (method ? `95 % band: ${method}` : '95 % band of each method');
 
 function sortedValues(values: ChartSeries['value'][]): ChartSeries['value'][] {
   const rank = (v: unknown) => (typeof v === 'number' ? 0 : v === null || v === undefined ? 2 : 1);
@@ -305,20 +400,42 @@ function layoutFrames(n: number, legend: (string | { name: string })[], exported
   return frames;
 }
 
-function tooltipHtml(
-  p: { seriesName: string; value: number[]; data: { flagged?: number; detail?: number } | number[] },
-  data: ChartData,
-  qx: Quantity,
-  qy: Quantity,
-  q: Quantities,
-): string {
+interface TooltipParams {
+  componentType?: string;
+  seriesName: string;
+  value: number[];
+  data: { flagged?: number; detail?: number; point?: number; band?: [number, number] } | number[];
+}
+
+function tooltipHtml(p: TooltipParams, data: ChartData, qx: Quantity, qy: Quantity, q: Quantities): string {
   const at = (quantity: Quantity, v: number) => `${escapeHtml(quantity.name)} = ${escapeHtml(formatNumber(v, 4))}${quantity.unit === '-' || quantity.unit === '?' ? '' : ` ${escapeHtml(quantity.unit)}`}`;
   const lines = [`<b>${escapeHtml(p.seriesName)}</b>`, at(qx, p.value[0]), at(qy, p.value[1])];
   const item = Array.isArray(p.data) ? undefined : p.data;
+  const band = item?.band;
+  if (band) lines.push(`95 % band: ${escapeHtml(formatNumber(qy.toDisplay(band[0]), 4))} … ${escapeHtml(formatNumber(qy.toDisplay(band[1]), 4))}${qy.unit === '-' || qy.unit === '?' ? '' : ` ${escapeHtml(qy.unit)}`}`);
   if (item?.flagged) {
     const details: FlagDetail[] = item.detail !== undefined ? (data.flag_details[item.detail] ?? []) : [];
     const text = details.map((d) => escapeHtml(flagText(d, q))).join('; ');
     lines.push(`<span style="color:#8c4119">flagged${text ? `: ${text}` : ''}</span>`);
+  }
+  if (item?.point !== undefined) lines.push(`<span style="color:${KEY_COLOUR}">point ${item.point}: click for every method there</span>`);
+  return lines.join('<br/>');
+}
+
+/** The tooltip of a not-reached rule: at this x, which methods missed the target and what they could reach. */
+function unreachedHtml(item: { unreached?: UnreachedPoint[] }, data: ChartData, target: TargetFacts | undefined, qx: Quantity, q: Quantities): string {
+  const list = item.unreached ?? [];
+  const x = list[0]?.x;
+  const out = target ? q(target.output) : undefined;
+  const range = (lo: number | null, hi: number | null, quantity: Quantity) =>
+    `${escapeHtml(formatNumber(lo === null ? null : quantity.toDisplay(lo), 4))} … ${escapeHtml(formatNumber(hi === null ? null : quantity.toDisplay(hi), 4))}${quantity.unit === '-' || quantity.unit === '?' ? '' : ` ${escapeHtml(quantity.unit)}`}`;
+  const lines = [
+    `<b>target not reached</b> at ${escapeHtml(qx.name)} = ${escapeHtml(formatNumber(x === null || x === undefined ? null : qx.toDisplay(x), 4))}${qx.unit === '-' || qx.unit === '?' ? '' : ` ${escapeHtml(qx.unit)}`}`,
+  ];
+  if (target && out) lines.push(`${escapeHtml(target.output)} = ${escapeHtml(formatQuantity(out, target.value))} asked, ${escapeHtml(target.adjust)} searched over ${range(target.within[0], target.within[1], q(target.adjust))}`);
+  for (const u of list) {
+    const label = data.series_by !== 'method' && u.value !== undefined ? `${u.method}, ${valueLabel(data.series_by, u.value, q)}` : u.method;
+    lines.push(`${escapeHtml(label)}: ${out ? `${escapeHtml(out.name)} reachable ` : 'reachable '}${range(u.min, u.max, out ?? q(''))} (point ${u.point})`);
   }
   return lines.join('<br/>');
 }

@@ -1,20 +1,33 @@
-// The comparison chart: relative difference (b − a)/|a| against one input, one series per method.
+// The comparison chart: relative difference (b − a)/|a| against one input, one series per
+// method; x in the units shown (°C or K by the user's choice) with its unit in the axis
+// title and tooltip.
 import type { EChartsCoreOption } from 'echarts/core';
 import type { CompareRow } from '../api/types.js';
 import { SERIES_COLOURS, wrap } from './chart-option.js';
 import { escapeHtml } from './escape-html.js';
 import { formatNumber } from './format.js';
+import type { Quantity } from './units.js';
 import { FIGURE, FONT_SANS } from './theme.js';
 
 export function buildCompareOption(
   rows: readonly CompareRow[],
   x: string,
   output: string,
-  look: { xLog: boolean; title?: { text: string; subtext: string; footer: string }; /** Axis title of x with its unit (default: the input's name). */ xLabel?: string },
+  look: {
+    xLog: boolean;
+    title?: { text: string; subtext: string; footer: string };
+    /** Axis title of x with its unit (default: the input's name). */
+    xLabel?: string;
+    /** x's display rule (°C or K, unit in the tooltip); default: SI as sent. */
+    xQuantity?: Quantity;
+  },
 ): EChartsCoreOption {
   const byMethod = new Map<string, [number, number][]>();
+  const toX = look.xQuantity?.toDisplay ?? ((v: number) => v);
+  const xUnit = look.xQuantity && look.xQuantity.unit !== '-' && look.xQuantity.unit !== '?' ? ` ${look.xQuantity.unit}` : '';
   for (const r of rows) {
-    const xv = r.inputs[x];
+    const raw = r.inputs[x];
+    const xv = typeof raw === 'number' ? toX(raw) : raw;
     if (typeof xv !== 'number' || r.rel_diff === null || !Number.isFinite(r.rel_diff)) continue;
     if (look.xLog && xv <= 0) continue;
     const list = byMethod.get(r.method) ?? [];
@@ -32,7 +45,7 @@ export function buildCompareOption(
     textStyle: { fontFamily: FONT_SANS, color: FIGURE.text },
     grid: { left: 70, right: 24, top: look.title ? 78 : 36, bottom: look.title ? 86 : 56 },
     legend: { type: 'scroll', top: look.title ? 50 : 4 },
-    tooltip: { trigger: 'item', formatter: (p: { seriesName: string; value: number[] }) => `${escapeHtml(p.seriesName)}<br/>${escapeHtml(x)} = ${formatNumber(p.value[0])}<br/>Δ${escapeHtml(output)} = ${formatNumber(p.value[1], 3)} %` },
+    tooltip: { trigger: 'item', formatter: (p: { seriesName: string; value: number[] }) => `${escapeHtml(p.seriesName)}<br/>${escapeHtml(x)} = ${formatNumber(p.value[0])}${escapeHtml(xUnit)}<br/>Δ${escapeHtml(output)} = ${formatNumber(p.value[1], 3)} %` },
     xAxis: { type: look.xLog ? 'log' : 'value', name: look.xLabel ?? x, nameLocation: 'middle', nameGap: 28, scale: !look.xLog, axisLabel: { formatter: (v: number) => formatNumber(v, 3) } },
     yAxis: { type: 'value', name: `(b − a)/|a| of ${output}, %`, nameLocation: 'middle', nameGap: 52, axisLabel: { formatter: (v: number) => formatNumber(v, 3) } },
     series,

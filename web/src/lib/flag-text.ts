@@ -16,12 +16,14 @@ const WORDS: Record<string, string> = {
   'target-not-reached': 'the target is not reached within the allowed range',
   'target-several-roots': 'several inputs meet the target (the smallest is shown)',
   'no-applicable-method': 'no method holds here',
+  'band-incomplete': 'some band samples gave no number; the band is from the rest',
 };
 const PREFIXES: [RegExp, (name: string) => string][] = [
   [/^out-of-chart:(.+)$/, (n) => `${n} beyond the pressure-drop charts (χ = 1 used)`],
   [/^conflict:(.+)$/, (n) => `the fixed ${n} contradicts the temperatures`],
   [/^non-finite:(.+)$/, (n) => `${n} is not a finite number (left out)`],
   [/^overflow:(.+)$/, (n) => `${n} overflows (left out)`],
+  [/^band-inputs-only:(.+)$/, (n) => `the band of ${n} holds the input tolerances only`],
 ];
 
 export function flagText(d: FlagDetail, quantities: Quantities): string {

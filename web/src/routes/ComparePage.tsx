@@ -2,23 +2,27 @@
 // relative tolerance), how many paired and how many are only in one run, the relative
 // differences of one output in a table and a chart, both study files' line diff, and both
 // runs' exports. When nothing pairs, the page says so, and never that nothing changed.
+// Units as on the run page: every header and axis with its unit, temperatures in the
+// user's °C or K (the API stays SI).
 import { useMemo, useState } from 'react';
 import { Link, useSearchParams } from 'react-router-dom';
 import { createColumnHelper } from '@tanstack/react-table';
 import { CAUTION } from '../../../shared/export/caution.js';
-import { displayUnit, makeUnitLookup } from '../../../shared/export/units.js';
 import { useCompare, usePickedRun, type CompareResponse, type CompareRow } from '../api/compare.js';
-import { useCatalogue } from '../api/methods.js';
 import { useRuns } from '../api/runs.js';
 import type { RunInfo } from '../api/types.js';
 import { DataTable } from '../components/DataTable.js';
 import { EChart } from '../components/EChart.js';
 import { ExportLinks } from '../components/ExportLinks.js';
 import { Empty, ErrorNote, Loading } from '../components/States.js';
+import { TemperatureUnitChoice } from '../components/TemperatureUnitChoice.js';
 import { YamlDiff } from '../components/YamlDiff.js';
 import { exportChart } from '../lib/chart-export.js';
 import { buildCompareOption } from '../lib/compare-chart.js';
 import { formatNumber, formatPercent, formatTime, formatValue } from '../lib/format.js';
+import { routeId } from '../lib/route-id.js';
+import { labelWithUnit } from '../lib/units.js';
+import { useQuantities } from '../lib/use-quantities.js';
 
 const col = createColumnHelper<CompareRow>();
 const runLabel = (r: RunInfo) => `#${r.id} · ${r.study} v${r.study_version} · ${r.status} · ${formatTime(r.started_at)}`;
@@ -80,8 +84,8 @@ function Verdict({ c }: { c: CompareResponse }) {
 
 export function ComparePage() {
   const [params, setParams] = useSearchParams();
-  const a = Number(params.get('a')) || undefined;
-  const b = Number(params.get('b')) || undefined;
+  const a = routeId(params.get('a') ?? undefined);
+  const b = routeId(params.get('b') ?? undefined);
   const output = params.get('output') ?? 'Nu';
   const changed = (params.get('changed') ?? 'yes') as 'yes' | 'any';
   const tolerance = Number(params.get('tol')) || 0;
@@ -92,7 +96,6 @@ export function ComparePage() {
   const runs = useRuns();
   const runA = usePickedRun(a);
   const runB = usePickedRun(b);
-  const catalogue = useCatalogue();
 
   const inputsA = runA.data?.columns.inputs ?? [];
   const inputsB = runB.data?.columns.inputs ?? [];
@@ -120,12 +123,11 @@ export function ComparePage() {
 
   const outputs = [...new Set([...(runA.data?.columns.outputs ?? []), ...(runB.data?.columns.outputs ?? [])])];
   const configuration = runA.data?.run.configuration ?? runB.data?.run.configuration;
-  const unitOf = useMemo(() => makeUnitLookup(catalogue.data?.methods.filter((m) => m.configuration === configuration) ?? []), [catalogue.data, configuration]);
-  // `Re [-]`, `velocity [m/s]` (SI, as the API sends them), as the run page labels them.
-  const withUnit = (name: string) => {
-    const u = unitOf(name);
-    return u === undefined ? name : `${name} [${displayUnit(u)}]`;
-  };
+  const quantities = useQuantities(configuration);
+  // `Re [-]`, `velocity [m/s]`, `fluid_temperature [°C]`, as the run page labels them.
+  const withUnit = (name: string) => labelWithUnit(quantities(name));
+  const shown = (name: string) => (v: unknown) => formatValue(typeof v === 'number' ? quantities(name).toDisplay(v) : v);
+  const kelvinNote = quantities(output).temperature ? ' of the kelvin values' : '';
   const xName = x || inputs.find((n) => n === 'Re' || n === 'Ra') || inputs[0] || '';
   // Inputs in which run b's paired point differs from run a's (not paired by, or within the tolerance).
   const rowsShown = compare.data?.rows ?? [];
@@ -133,28 +135,29 @@ export function ComparePage() {
   const columns = useMemo(
     () => [
       col.accessor('method', { header: 'method', cell: (c) => <span className="font-mono text-xs">{c.getValue()}</span> }),
-      ...inputs.map((n) => col.accessor((r) => r.inputs[n], { id: n, header: () => <span className="font-mono">{withUnit(n)}</span>, meta: { numeric: true }, cell: (c) => formatValue(c.getValue()) })),
+      ...inputs.map((n) => col.accessor((r) => r.inputs[n], { id: n, header: () => <span className="font-mono">{withUnit(n)}</span>, meta: { numeric: true }, cell: (c) => shown(n)(c.getValue()) })),
       ...differingB.map((n) =>
-        col.accessor((r) => r.inputs_b[n], { id: `b:${n}`, header: () => <span className="font-mono">{withUnit(n)} in b</span>, meta: { numeric: true }, cell: (c) => formatValue(c.getValue()) }),
+        col.accessor((r) => r.inputs_b[n], { id: `b:${n}`, header: () => <span className="font-mono">{withUnit(n)} in b</span>, meta: { numeric: true }, cell: (c) => shown(n)(c.getValue()) }),
       ),
-      col.accessor('a', { header: `run a: ${withUnit(output)}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), 6) }),
-      col.accessor('b', { header: `run b: ${withUnit(output)}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue(), 6) }),
+      col.accessor('a', { header: `run a: ${withUnit(output)}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue() === null ? null : quantities(output).toDisplay(c.getValue()!), 6) }),
+      col.accessor('b', { header: `run b: ${withUnit(output)}`, meta: { numeric: true }, cell: (c) => formatNumber(c.getValue() === null ? null : quantities(output).toDisplay(c.getValue()!), 6) }),
       col.accessor('rel_diff', {
-        header: '(b − a)/|a| [%]',
+        // A relative change of an absolute temperature is taken on kelvin (SI), whatever is shown.
+        header: `(b − a)/|a|${kelvinNote} [%]`,
         meta: { numeric: true },
         cell: (c) => <span className={c.getValue() ? 'text-ember-700' : 'text-ink-400'}>{formatPercent(c.getValue())}</span>,
       }),
     ],
-    [inputs.join(','), differingB.join(','), output, unitOf],
+    [inputs.join(','), differingB.join(','), output, quantities],
   );
-  const chartOption = useMemo(() => (forChart.data && xName ? buildCompareOption(forChart.data.rows, xName, output, { xLog, xLabel: withUnit(xName) }) : null), [forChart.data, xName, output, xLog, unitOf]);
+  const xLook = { xLog, xLabel: withUnit(xName), xQuantity: quantities(xName) };
+  const chartOption = useMemo(() => (forChart.data && xName ? buildCompareOption(forChart.data.rows, xName, output, xLook) : null), [forChart.data, xName, output, xLog, quantities]);
 
   const save = (type: 'svg' | 'png') => {
     if (!forChart.data) return;
     const { a: ra, b: rb } = forChart.data;
     const option = buildCompareOption(forChart.data.rows, xName, output, {
-      xLog,
-      xLabel: withUnit(xName),
+      ...xLook,
       title: {
         text: `Change of ${output} between run #${ra.id} and run #${rb.id}`,
         subtext: `a: run #${ra.id}, ${ra.study} v${ra.study_version} · b: run #${rb.id}, ${rb.study} v${rb.study_version} · paired by ${forChart.data.by.join(', ')}`,
@@ -168,7 +171,10 @@ export function ComparePage() {
   const pickedError = runA.error ?? runB.error;
   return (
     <div className="space-y-5">
-      <h1 className="text-2xl font-bold tracking-tight">Compare two runs</h1>
+      <div className="flex flex-wrap items-center gap-4">
+        <h1 className="text-2xl font-bold tracking-tight">Compare two runs</h1>
+        <div className="ml-auto"><TemperatureUnitChoice /></div>
+      </div>
       <section className="card space-y-4" aria-label="Runs to compare">
         {runs.isError && <ErrorNote error={runs.error} title="The runs could not be listed" />}
         <div className="flex flex-wrap items-end gap-3">
@@ -184,7 +190,7 @@ export function ComparePage() {
           <div>
             <label htmlFor="compare-output" className="field-label">output</label>
             <select id="compare-output" className="input w-auto" value={output} onChange={(e) => set({ output: e.target.value })}>
-              {[...new Set([output, ...outputs])].map((n) => <option key={n} value={n}>{n}</option>)}
+              {[...new Set([output, ...outputs])].map((n) => <option key={n} value={n}>{withUnit(n)}</option>)}
             </select>
           </div>
           <div>
@@ -257,7 +263,7 @@ export function ComparePage() {
                   <div>
                     <label htmlFor="compare-x" className="field-label">against</label>
                     <select id="compare-x" className="input w-auto" value={xName} onChange={(e) => setX(e.target.value)}>
-                      {inputs.map((n) => <option key={n} value={n}>{n}</option>)}
+                      {inputs.map((n) => <option key={n} value={n}>{withUnit(n)}</option>)}
                     </select>
                   </div>
                   <label className="flex items-center gap-1 pb-1.5 text-sm"><input type="checkbox" checked={xLog} onChange={(e) => setXLog(e.target.checked)} /> log x</label>

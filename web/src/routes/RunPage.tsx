@@ -19,11 +19,12 @@ import { ResultsTable } from '../components/ResultsTable.js';
 import { ResumeButton } from '../components/ResumeButton.js';
 import { RunChart } from '../components/RunChart.js';
 import { RunProgress, StatusBadge } from '../components/StatusBadge.js';
-import { ErrorNote, Loading } from '../components/States.js';
+import { BadAddress, ErrorNote, Loading } from '../components/States.js';
 import { TemperatureUnitChoice } from '../components/TemperatureUnitChoice.js';
 import { formatCount, formatDuration, formatNumber, formatTime } from '../lib/format.js';
 import { defaultResultQuery, type ResultQuery } from '../lib/result-query.js';
 import { can } from '../lib/roles.js';
+import { routeId } from '../lib/route-id.js';
 import { useQuantities } from '../lib/use-quantities.js';
 
 const col = createColumnHelper<MethodSummary & { title?: string; uncertainty?: number }>();
@@ -39,7 +40,8 @@ function Fact({ label, children, testId }: { label: string; children: React.Reac
 }
 
 export function RunPage() {
-  const id = Number(useParams().id);
+  const id = routeId(useParams().id);
+  if (id === undefined) return <BadAddress what="run" />;
   return <RunView key={id} id={id} />;
 }
 

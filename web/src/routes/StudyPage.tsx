@@ -12,19 +12,25 @@ import type { RunInfo } from '../api/types.js';
 import { DataTable } from '../components/DataTable.js';
 import { MeasurementUploadForm } from '../components/MeasurementUploadForm.js';
 import { RunProgress, StatusBadge } from '../components/StatusBadge.js';
-import { Empty, ErrorNote, Loading } from '../components/States.js';
+import { BadAddress, Empty, ErrorNote, Loading } from '../components/States.js';
 import { StudyUploadForm } from '../components/StudyUploadForm.js';
 import { formatDuration, formatTime } from '../lib/format.js';
 import { can } from '../lib/roles.js';
+import { routeId } from '../lib/route-id.js';
 
 const runCol = createColumnHelper<RunInfo>();
 const mCol = createColumnHelper<Measurement>();
 
 export function StudyPage() {
-  const id = Number(useParams().id);
+  const id = routeId(useParams().id);
+  if (id === undefined) return <BadAddress what="study" />;
+  return <StudyView key={id} id={id} />;
+}
+
+function StudyView({ id }: { id: number }) {
   const study = useStudy(id);
   const session = useSession();
-  const measurements = useMeasurements(Number.isFinite(id) ? id : undefined);
+  const measurements = useMeasurements(id);
   const catalogue = useCatalogue();
   const navigate = useNavigate();
   const [versionId, setVersionId] = useState<number | null>(null);
