@@ -10,7 +10,7 @@ import { closeStore, openStore } from '../../shared/db/index.js';
 import { parseQueueUrl, runOnQueue } from '../../shared/queue/index.js';
 import { prepareStudy, runStudyFile } from '../../shared/runner/index.js';
 import { loadStudyFile } from '../../shared/study/index.js';
-import { SIMILARITY_SWEEP_M, similaritySweepStudy } from './runner.js';
+import { SIMILARITY_SWEEP_LABEL, similaritySweepStudy } from './runner.js';
 import { fmt, timeAsync, type BenchContext } from './timing.js';
 
 const BIN = resolve('bin/filmsweep.js');
@@ -57,12 +57,12 @@ async function queuedRun(ctx: BenchContext, file: string, processes: number): Pr
 }
 
 export async function benchQueue(ctx: BenchContext) {
-  const file = ctx.study('bench-wedge-queue', similaritySweepStudy('bench-wedge-queue'));
+  const file = ctx.study('bench-plate-queue', similaritySweepStudy('bench-plate-queue'));
   const local = await timeAsync(() => runStudyFile(file, { db: join(ctx.dir, 'queue-local.db'), workers: 1 }));
   const one = await queuedRun(ctx, file, 1);
   const two = await queuedRun(ctx, file, 2);
   const points = local.value.points_total;
-  console.log(`similarity sweep through the Redis queue, ${SIMILARITY_SWEEP_M} m × 5 Pr, worker processes of 1 thread, one SQLite file:`);
+  console.log(`similarity sweep through the Redis queue, ${SIMILARITY_SWEEP_LABEL}, worker processes of 1 thread, one SQLite file:`);
   console.log(`  local pool, 1 thread:   ${fmt(local.seconds)} s = ${fmt(points / local.seconds)} points/s`);
   console.log(`  queue, 1 worker process: ${fmt(one)} s = ${fmt(points / one)} points/s`);
   console.log(`  queue, 2 worker processes: ${fmt(two)} s = ${fmt(points / two)} points/s`);
