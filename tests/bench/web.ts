@@ -94,6 +94,8 @@ export async function benchWeb(ctx: BenchContext) {
     // What else the page waits for, to tell where its first paint goes.
     const runTimes: number[] = [];
     const pageTimes: number[] = [];
+    const others: Record<string, number[]> = { '/api/session': [], '/api/methods': [], '/api/studies': [], '/api/studies?q=bench-web-big': [] };
+    for (let i = 0; i < 5; i++) for (const [path, times] of Object.entries(others)) times.push((await timeAsync(() => get(path))).seconds * 1000);
     for (let i = 0; i < 5; i++) {
       runTimes.push((await timeAsync(() => get(`/api/runs/${big.id}`))).seconds * 1000);
       pageTimes.push((await timeAsync(() => get(`/api/runs/${big.id}/results?pageSize=50&page=${1 + i}`))).seconds * 1000);
@@ -104,11 +106,21 @@ export async function benchWeb(ctx: BenchContext) {
     const context = await browser.newContext({ viewport: { width: 1440, height: 900 } });
     const [name, value] = cookie.split('=');
     await context.addCookies([{ name, value, url: server.url }]);
+    // The app asks for its session only when its hint says it signed in (web/src/api/session.ts).
+    await context.addInitScript(() => (globalThis as unknown as { localStorage: { setItem(k: string, v: string): void } }).localStorage.setItem('filmsweep.signed-in', '1'));
     const paints: number[] = [];
+    // Where the last load's time goes: when each API request started and ended.
+    let waterfall: string[] = [];
     for (let i = 0; i < 7; i++) {
       const page = await context.newPage();
+      const t0 = performance.now();
+      waterfall = [];
+      const at = () => (performance.now() - t0).toFixed(0).padStart(5);
+      page.on('request', (r) => r.url().includes('/api/') && waterfall.push(`${at()} ms  start ${r.url().slice(server.url.length)}`));
+      page.on('requestfinished', (r) => r.url().includes('/api/') && waterfall.push(`${at()} ms  end   ${r.url().slice(server.url.length)}`));
       await page.goto(`${server.url}/#/runs/${big.id}`);
-      const ms = await page.waitForFunction(
+      const ms = await page
+        .waitForFunction(
         () => {
           const doc = (globalThis as unknown as { document: { querySelector(s: string): { querySelectorAll(s: string): { length: number } } | null } }).document;
           const rows = doc.querySelector('table[aria-label="Results"] tbody')?.querySelectorAll('tr').length ?? 0;
@@ -117,8 +129,15 @@ export async function benchWeb(ctx: BenchContext) {
         },
         undefined,
         { timeout: 60_000, polling: 'raf' },
-      );
+        )
+        .catch(async (e: Error) => {
+          // Say what the page showed instead of a bare timeout.
+          const shot = join(ctx.dir, '..', 'filmsweep-bench-web-timeout.png');
+          await page.screenshot({ path: shot, fullPage: true });
+          throw new Error(`${e.message}\npage text: ${(await page.locator('body').innerText()).slice(0, 3000)}\nscreenshot: ${shot}`);
+        });
       paints.push(Number(await ms.jsonValue()));
+      waterfall.push(`${(performance.now() - t0).toFixed(0).padStart(5)} ms  table and chart on screen`);
       await page.close();
     }
     const stillWriting = await writing();
@@ -128,7 +147,10 @@ export async function benchWeb(ctx: BenchContext) {
     console.log(`  chart request, median of ${chartTimes.length} (6 kinds: axes, filters, one method): ${fmt(median(chartTimes))} ms (goal < 300 ms, ratio ${fmt(median(chartTimes) / 300)}), max ${fmt(Math.max(...chartTimes))} ms`);
     console.log(`  axis facts (/chart/axes): ${fmt(axes.seconds * 1000)} ms`);
     console.log(`  the page also waits for: the run with its summary per method (GET /api/runs/:id) ${fmt(median(runTimes))} ms, a results page ${fmt(median(pageTimes))} ms (medians of 5)`);
+    console.log(`  and: ${Object.entries(others).map(([path, times]) => `${path} ${fmt(median(times))} ms`).join(', ')} (medians of 5)`);
     console.log(`  first paint with table and chart (Chromium), median of ${paints.length} loads: ${fmt(median(paints))} ms (goal < 1000 ms, ratio ${fmt(median(paints) / 1000)}), max ${fmt(Math.max(...paints))} ms`);
+    console.log(`  the last load's API requests (ms from the start of navigation, as this process saw them):`);
+    for (const line of waterfall) console.log(`    ${line}`);
   } finally {
     if (writer.exitCode === null && writer.signalCode === null) {
       const gone = new Promise((r) => writer.once('exit', r));

@@ -1,6 +1,6 @@
 // The screenshots in docs/screenshots/ (README, "The dashboard"): every view at 1440 and
 // 390 px wide in real Chromium, on two versions of the demo's tube-loop study and the
-// probe study. Writes into the repository, so it runs only when asked:
+// probe study, and the probe air-speed design run (target, bands, point view). Writes into the repository, so it runs only when asked:
 //   npm run screenshots        (FILMSWEEP_SCREENSHOTS=1 vitest run tests/browser/screenshots.test.ts)
 import { existsSync, mkdirSync, readFileSync } from 'node:fs';
 import path from 'node:path';
@@ -13,6 +13,10 @@ const tubeLoop = readFileSync(path.join(repo, 'studies', 'tube-loop-map.yaml'), 
 // Version 2 of the tube study: shorter tubes and one more Reynolds number.
 const tubeLoopV2 = tubeLoop.replace('L_over_D: 60', 'L_over_D: 30').replace('3.0e5, 1.0e6]', '3.0e5, 1.0e6, 2.0e6]');
 const probe = readFileSync(path.join(repo, 'studies', 'probe-in-duct.yaml'), 'utf8');
+// A design run (target and bands): the run page's solved-input chart and the point view.
+const airSpeed = readFileSync(path.join(repo, 'studies', 'probe-air-speed.yaml'), 'utf8');
+/** Long pages are cut at this many screen heights: the top shows the view, the rest is more of the same rows. */
+const MAX_SCREENS = 3;
 
 describe.skipIf(!existsSync(CHROMIUM) || process.env.FILMSWEEP_SCREENSHOTS !== '1')('screenshots of every view', { timeout: 300_000 }, () => {
   let d: Dashboard;
@@ -24,6 +28,7 @@ describe.skipIf(!existsSync(CHROMIUM) || process.env.FILMSWEEP_SCREENSHOTS !== '
       ['tube-loop-map', tubeLoop],
       ['tube-loop-map-v2', tubeLoopV2],
       ['probe-in-duct', probe],
+      ['probe-air-speed', airSpeed],
     ]);
   }, 300_000);
 
@@ -33,13 +38,16 @@ describe.skipIf(!existsSync(CHROMIUM) || process.env.FILMSWEEP_SCREENSHOTS !== '
 
   async function shoot(page: Page, name: string, width: number) {
     await settle(page);
-    await page.screenshot({ path: path.join(out, `${name}-${width}.png`), fullPage: true });
+    const screen = page.viewportSize()!;
+    const height = await page.evaluate(() => document.documentElement.scrollHeight);
+    const clip = height > MAX_SCREENS * screen.height ? { x: 0, y: 0, width: screen.width, height: MAX_SCREENS * screen.height } : undefined;
+    await page.screenshot({ path: path.join(out, `${name}-${width}.png`), fullPage: true, ...(clip ? { clip } : {}) });
   }
 
   for (const viewport of [DESKTOP, PHONE]) {
     it(`every view at ${viewport.width} px`, async () => {
       const w = viewport.width;
-      const [tubeV1, tubeV2, probeRun] = d.runs;
+      const [tubeV1, tubeV2, probeRun, designRun] = d.runs;
       const signIn = await d.browser.newContext({ viewport });
       const anon = await signIn.newPage();
       await anon.goto(`${d.base}/#/sign-in`);
@@ -77,6 +85,12 @@ describe.skipIf(!existsSync(CHROMIUM) || process.env.FILMSWEEP_SCREENSHOTS !== '
       await page.goto(`${d.base}/#/runs/${probeRun}`);
       await page.getByTestId('chart').locator('svg').waitFor();
       await shoot(page, 'run-dimensional', w);
+      await page.goto(`${d.base}/#/runs/${designRun}`);
+      await page.getByTestId('chart').locator('svg').waitFor();
+      await shoot(page, 'run-target', w);
+      await page.goto(`${d.base}/#/runs/${designRun}/points/1`);
+      await page.getByRole('table', { name: 'Outputs at this point' }).waitFor();
+      await shoot(page, 'point', w);
 
       await page.goto(`${d.base}/#/compare?a=${tubeV1}&b=${tubeV2}&output=Nu`);
       await page.getByTestId('compare-verdict').waitFor();

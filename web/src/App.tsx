@@ -4,7 +4,12 @@ import { MutationCache, QueryCache, QueryClient, QueryClientProvider } from '@ta
 import type { ComponentType } from 'react';
 import { createHashRouter, Navigate, RouterProvider } from 'react-router-dom';
 import { ApiError } from './api/client.js';
-import { sessionEnded } from './api/session.js';
+import { sessionEnded, sessionQuery } from './api/session.js';
+import { catalogueQuery } from './api/methods.js';
+import { chartAxesQuery, chartQuery, resultsQuery, runQuery } from './api/runs.js';
+import { chartQueryFor, defaultChoice, startingChoice } from './lib/chart-defaults.js';
+import { defaultResultQuery } from './lib/result-query.js';
+import { routeId } from './lib/route-id.js';
 import { Layout } from './components/Layout.js';
 import { RequireRole } from './components/RequireRole.js';
 import { Loading } from './components/States.js';
@@ -34,6 +39,36 @@ const queryClient = new QueryClient({
   },
 });
 
+// The session is asked for at start, not after the first page's code has loaded (no
+// request without the signed-in hint: sessionQuery returns null then).
+void queryClient.prefetchQuery(sessionQuery);
+
+/**
+ * The run page's data, asked for while its code (and ECharts) loads: the run, the catalogue,
+ * the chart's axis facts, the first results page and the default chart. Only once the session is known, so a
+ * signed-out visit asks for nothing. Returns at once: the page shows its own loading state.
+ */
+function prefetchRun({ params }: { params: { id?: string } }) {
+  const id = routeId(params.id);
+  if (id !== undefined) {
+    void queryClient.fetchQuery(sessionQuery).then((session) => {
+      if (!session) return;
+      void queryClient.prefetchQuery(resultsQuery(id, defaultResultQuery));
+      // The default chart, as RunChart would ask for it, once the facts it starts from are in.
+      void Promise.all([queryClient.fetchQuery(runQuery(id)), queryClient.fetchQuery(catalogueQuery), queryClient.fetchQuery(chartAxesQuery(id))])
+        .then(([{ run }, catalogue, axes]) => {
+          const regime = catalogue.configurations.find((c) => c.id === run.configuration)?.regime;
+          const facts = axes.names;
+          const choice = startingChoice(facts, defaultChoice(facts, regime, axes.target, run.methods.length), {});
+          const query = chartQueryFor(facts, choice, { ...defaultResultQuery, drawnMethods: run.methods.length });
+          if (query) void queryClient.prefetchQuery(chartQuery(id, query));
+        })
+        .catch(() => undefined); // the page asks again and shows the error
+    });
+  }
+  return null;
+}
+
 const router = createHashRouter([
   { path: '/sign-in', element: <SignInPage /> },
   { path: '/invite/:token', lazy: page(() => import('./routes/InvitePage.js'), 'InvitePage') },
@@ -45,7 +80,7 @@ const router = createHashRouter([
       { index: true, element: <Navigate to="/studies" replace /> },
       { path: '/studies', element: <StudiesPage /> },
       { path: '/studies/:id', lazy: page(() => import('./routes/StudyPage.js'), 'StudyPage') },
-      { path: '/runs/:id', lazy: page(() => import('./routes/RunPage.js'), 'RunPage') },
+      { path: '/runs/:id', loader: prefetchRun, lazy: page(() => import('./routes/RunPage.js'), 'RunPage') },
       { path: '/runs/:id/points/:point', lazy: page(() => import('./routes/PointPage.js'), 'PointPage') },
       { path: '/compare', lazy: page(() => import('./routes/ComparePage.js'), 'ComparePage') },
       { path: '/catalogue', lazy: page(() => import('./routes/CataloguePage.js'), 'CataloguePage') },

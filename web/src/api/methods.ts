@@ -24,10 +24,8 @@ export interface Catalogue {
   methods: MethodInfo[];
 }
 
+export const catalogueQuery = { queryKey: ['methods'], queryFn: () => api<Catalogue>('/api/methods'), staleTime: Infinity };
+
 export function useCatalogue() {
-  return useQuery({
-    queryKey: ['methods'],
-    queryFn: () => api<Catalogue>('/api/methods'),
-    staleTime: Infinity,
-  });
+  return useQuery(catalogueQuery);
 }

@@ -33,27 +33,47 @@ export function useRuns(filter: { study?: number; status?: RunStatus } = {}) {
 }
 
 /** A run; polled while it is queued or running so the progress bar moves. */
+/**
+ * What the run page's route prefetched is fresh this long, so the page does not ask again
+ * on mount; a live run still refreshes on its interval, and a run's end invalidates it.
+ */
+const PREFETCHED_FRESH_MS = 5_000;
+
+/** One run with its summary per method (also prefetched by the run page's route, App.tsx). */
+export const runQuery = (id: number) => ({ queryKey: ['run', id], queryFn: () => api<RunResponse>(`/api/runs/${id}`), staleTime: PREFETCHED_FRESH_MS });
+
 export function useRun(id: number) {
   return useQuery({
-    queryKey: ['run', id],
-    queryFn: () => api<RunResponse>(`/api/runs/${id}`),
+    ...runQuery(id),
     refetchInterval: (query) => (active(query.state.data?.run.status) ? 1500 : false),
   });
 }
 
+/** One page of a run's results. */
+export const resultsQuery = (id: number, query: ResultQuery) => ({
+  queryKey: ['results', id, query],
+  queryFn: () => api<ResultsPage>(`/api/runs/${id}/results?${resultsSearch(query)}`),
+  staleTime: PREFETCHED_FRESH_MS,
+});
+
 export function useResults(id: number, query: ResultQuery, live: boolean) {
   return useQuery({
-    queryKey: ['results', id, query],
-    queryFn: () => api<ResultsPage>(`/api/runs/${id}/results?${resultsSearch(query)}`),
+    ...resultsQuery(id, query),
     placeholderData: keepPreviousData,
     refetchInterval: live ? 3000 : false,
   });
 }
 
+/** One chart of a run (the route prefetches the default one). */
+export const chartQuery = (id: number, query: ChartQuery | null) => ({
+  queryKey: ['chart', id, query],
+  queryFn: () => api<ChartData>(`/api/runs/${id}/chart?${chartSearch(query!)}`),
+  staleTime: PREFETCHED_FRESH_MS,
+});
+
 export function useChart(id: number, query: ChartQuery | null, live: boolean) {
   return useQuery({
-    queryKey: ['chart', id, query],
-    queryFn: () => api<ChartData>(`/api/runs/${id}/chart?${chartSearch(query!)}`),
+    ...chartQuery(id, query),
     enabled: query !== null && query.x !== '' && query.y !== '',
     placeholderData: keepPreviousData,
     refetchInterval: live ? 3000 : false,
@@ -61,10 +81,11 @@ export function useChart(id: number, query: ChartQuery | null, live: boolean) {
 }
 
 /** Facts about every input and output, for the chart's choices; refreshed while the run runs. */
+export const chartAxesQuery = (id: number) => ({ queryKey: ['chart-axes', id], queryFn: () => api<ChartAxes>(`/api/runs/${id}/chart/axes`), staleTime: PREFETCHED_FRESH_MS });
+
 export function useChartAxes(id: number, live: boolean) {
   return useQuery({
-    queryKey: ['chart-axes', id],
-    queryFn: () => api<ChartAxes>(`/api/runs/${id}/chart/axes`),
+    ...chartAxesQuery(id),
     refetchInterval: live ? 3000 : false,
   });
 }

@@ -41,28 +41,30 @@ export function sessionEnded(client: QueryClient) {
   client.setQueryData(sessionKey, null);
 }
 
-/** The session, or null when signed out (401 is an answer here, not an error). */
-export function useSession() {
-  return useQuery({
-    queryKey: sessionKey,
-    queryFn: async (): Promise<SessionResponse | null> => {
-      if (!hinted()) return null;
-      try {
-        const s = await api<SessionResponse>('/api/session');
-        setCsrfToken(s.csrfToken);
-        return s;
-      } catch (e) {
-        if (e instanceof ApiError && e.status === 401) {
-          remember(false);
-          setCsrfToken(null);
-          return null;
-        }
-        throw e;
+/** The session, or null when signed out (401 is an answer here, not an error). App.tsx starts it before the first page's code has loaded. */
+export const sessionQuery = {
+  queryKey: sessionKey,
+  queryFn: async (): Promise<SessionResponse | null> => {
+    if (!hinted()) return null;
+    try {
+      const s = await api<SessionResponse>('/api/session');
+      setCsrfToken(s.csrfToken);
+      return s;
+    } catch (e) {
+      if (e instanceof ApiError && e.status === 401) {
+        remember(false);
+        setCsrfToken(null);
+        return null;
       }
-    },
-    staleTime: 60_000,
-    retry: false,
-  });
+      throw e;
+    }
+  },
+  staleTime: 60_000,
+  retry: false,
+};
+
+export function useSession() {
+  return useQuery(sessionQuery);
 }
 
 function useSignedIn() {

@@ -10,7 +10,7 @@ import type { Measurement } from '../api/measurements.js';
 import { useCatalogue } from '../api/methods.js';
 import { useChart, useChartAxes } from '../api/runs.js';
 import type { AxisFacts, ChartData, RunInfo } from '../api/types.js';
-import { defaultChoice, numeric, secondInputs, seriesProblem, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
+import { chartQueryFor, defaultChoice, numeric, secondInputs, seriesProblem, startingChoice, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
 import { exportChart, exportTitle } from '../lib/chart-export.js';
 import { autoLog, buildChartOption, EVERY_METHOD, hiddenOnLogAxes, type ChartLook } from '../lib/chart-option.js';
 import { formatCount, formatNumber } from '../lib/format.js';
@@ -48,13 +48,9 @@ export function RunChart({ run, methods, flagged, filters, measurements, live, q
   const target = axes.data?.target;
   const drawnMethods = methods.length || run.methods.length;
   const defaults = useMemo(() => defaultChoice(facts, regime, target, drawnMethods), [axes.data, regime, drawnMethods]);
-  const choice: ChartChoice = { ...defaults, ...chosen };
-  if (choice.by !== 'method' && (choice.by === choice.x || !facts.some((f) => f.name === choice.by))) choice.by = 'method';
+  const choice = startingChoice(facts, defaults, chosen);
   const problem = facts.length ? seriesProblem(facts, choice, drawnMethods) : null;
-  const query: ChartQuery | null =
-    choice.x && choice.y && !problem
-      ? { x: choice.x, y: choice.y, series: choice.by, methods, flagged, filters, max: 2000, measurement: measurement ? Number(measurement) : undefined }
-      : null;
+  const query = chartQueryFor(facts, choice, { methods, drawnMethods, flagged, filters, measurement: measurement ? Number(measurement) : undefined });
   const chart = useChart(run.id, query, live);
   const data = chart.data;
   const auto = useMemo(() => (data ? autoLog(data, quantities) : { x: true, y: true }), [data, quantities]);

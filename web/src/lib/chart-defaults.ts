@@ -6,6 +6,7 @@
 // with the widest range (x).
 import type { TargetFacts } from '../../../shared/chart/types.js';
 import type { AxisFacts } from '../api/types.js';
+import type { ChartQuery, FlaggedFilter, RangeFilter } from './result-query.js';
 
 /** A second input drawn as line styles and markers: at most this many values. */
 export const MAX_STYLED_VALUES = 8;
@@ -105,3 +106,28 @@ export function seriesProblem(facts: readonly AxisFacts[], choice: ChartChoice, 
 }
 
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
+
+/** Points a run chart asks for at most. */
+export const CHART_MAX_POINTS = 2000;
+
+/**
+ * The chart request for a choice, or null when it cannot be drawn (no axes yet, or too
+ * many series). One function for the chart itself and for the run page's route, which asks
+ * for the default chart while the page's code loads: the same query, the same cache entry.
+ */
+export function chartQueryFor(
+  facts: readonly AxisFacts[],
+  choice: ChartChoice,
+  view: { methods: string[]; drawnMethods: number; flagged: FlaggedFilter; filters: RangeFilter[]; measurement?: number },
+): ChartQuery | null {
+  const problem = facts.length ? seriesProblem(facts, choice, view.drawnMethods) : null;
+  if (!choice.x || !choice.y || problem) return null;
+  return { x: choice.x, y: choice.y, series: choice.by, methods: view.methods, flagged: view.flagged, filters: view.filters, max: CHART_MAX_POINTS, measurement: view.measurement };
+}
+
+/** The starting choice with its fallbacks (a `by` that is x, or not a name of the run, is `method`). */
+export function startingChoice(facts: readonly AxisFacts[], defaults: ChartChoice, chosen: Partial<ChartChoice>): ChartChoice {
+  const choice: ChartChoice = { ...defaults, ...chosen };
+  if (choice.by !== 'method' && (choice.by === choice.x || !facts.some((f) => f.name === choice.by))) choice.by = 'method';
+  return choice;
+}
