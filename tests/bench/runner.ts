@@ -138,13 +138,14 @@ export async function benchEndToEnd(ctx: BenchContext) {
   }
 }
 
-// A sweep that takes about 9 s on one thread, so the fixed start-up of a run (about 0.4 s
+// A sweep that takes about 15 s on one thread, so the fixed start-up of a run (about 0.4 s
 // of validation, store and worker start that no worker count shortens) does not stand in
-// for the scaling (with ~5 s it capped the ratio near 1.6 on cores that scale 1.85×). Since
+// for the scaling: measured in one run, 30,000 points (7.4 s) gave 1.60×, 60,000 points
+// (15.4 s) 1.74×, on cores whose own ceiling was 1.87–1.99×. Since
 // the Taylor-series similarity solvers (issue 14) a 2400 m × 5 Pr wedge sweep takes well
 // under a second, so the sweep is now free convection on a vertical plate, each Pr a new
-// coupled momentum–energy solve (about 0.3 ms a point). The queue section sweeps the same study.
-export const SIMILARITY_SWEEP_POINTS = 30_000;
+// coupled momentum–energy solve (about 0.25 ms a point). The queue section sweeps the same study.
+export const SIMILARITY_SWEEP_POINTS = 60_000;
 export const SIMILARITY_SWEEP_LABEL = `${SIMILARITY_SWEEP_POINTS.toLocaleString('en-US')} Pr values, free-convection similarity (each a new solve)`;
 export const similaritySweepStudy = (name: string) => `name: ${name}
 configuration: vertical-plate
