@@ -8,7 +8,7 @@ import { getRun, getRunDetails, getRunSource, getRunSummary, resumeRefusal, RUN_
 import { getMeasurement } from '../../shared/db/measurements.js';
 import { chartAxes, chartData, MAX_CHART_POINTS, measuredOverlay } from '../../shared/db/chart-query.js';
 import { getRunColumns, MAX_PAGE_SIZE, NAME_PATTERN, queryResults, type RangeFilter } from '../../shared/db/results-query.js';
-import { getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
+import { findStudyByName, getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
 import { runRowSource } from '../../shared/db/run-rows.js';
 import { exportFormats, makeUnitLookup, mediaTypes, OutputClosedError, runMethodSpecs, writeRunExport, xlsxTooLong, type ExportFormat } from '../../shared/export/index.js';
 import { InputError } from '../../shared/physics/types.js';
@@ -106,7 +106,9 @@ export function runsRouter(ctx: AppContext): Router {
     const run = await getDashboardRun(ctx.store, id);
     if (!run) throw notFound(`run ${id}`);
     const details = await getRunDetails(ctx.store, id);
-    res.json({ run, summary: await getRunSummary(ctx.store, id), error: details?.error ?? null, columns: await getRunColumns(ctx.store, id) });
+    // study_id: the run page links its study and lists its measurements without searching by name.
+    const study = await findStudyByName(ctx.store, run.study);
+    res.json({ run, study_id: study?.id ?? null, summary: await getRunSummary(ctx.store, id), error: details?.error ?? null, columns: await getRunColumns(ctx.store, id) });
   });
 
   r.get('/:id/results', async (req, res) => {

@@ -7,6 +7,8 @@ import { chartSearch, resultsSearch, type ChartQuery, type ResultQuery } from '.
 
 export interface RunResponse {
   run: RunInfo;
+  /** The run's study (null only for a study removed since). */
+  study_id: number | null;
   summary: MethodSummary[];
   error: string | null;
   columns: RunColumns;

@@ -10,7 +10,6 @@ import { useCatalogue } from '../api/methods.js';
 import { useMeasurements } from '../api/measurements.js';
 import { active, useRefreshRunData, useRun, useSetReference } from '../api/runs.js';
 import { useSession } from '../api/session.js';
-import { useStudies } from '../api/studies.js';
 import type { MethodSummary } from '../api/types.js';
 import { DataTable } from '../components/DataTable.js';
 import { ExportLinks } from '../components/ExportLinks.js';
@@ -52,8 +51,7 @@ function RunView({ id }: { id: number }) {
   const setReference = useSetReference(id);
   const refreshRunData = useRefreshRunData();
   const [query, setQuery] = useState<ResultQuery>(defaultResultQuery);
-  const studies = useStudies(run.data?.run.study ?? '');
-  const studyId = studies.data?.studies.find((s) => s.name === run.data?.run.study)?.id;
+  const studyId = run.data?.study_id ?? undefined;
   const measurements = useMeasurements(studyId);
   const quantities = useQuantities(run.data?.run.configuration);
 
