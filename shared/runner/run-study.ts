@@ -194,13 +194,13 @@ export async function resumeRun(store: Store, runId: number, options: ResumeOpti
   const donePoints = await claimRunForResume(store, runId, { host: hostName(), pid: process.pid, workers }, isAlive);
   const missing: number[] = [];
   for (let i = 0; i < prepared.total; i++) if (!donePoints.has(i)) missing.push(i);
-  const todo = toRanges(missing);
+  const pending = toRanges(missing);
   const counts = await store.db
     .selectFrom('runs')
     .select(['results_count', 'flagged_count'])
     .where('id', '=', runId)
     .executeTakeFirstOrThrow();
-  return execute(store, runId, prepared, todo, { results: counts.results_count, flagged: counts.flagged_count }, workers, options);
+  return execute(store, runId, prepared, pending, { results: counts.results_count, flagged: counts.flagged_count }, workers, options);
 }
 
 function methodChanges(stored: MethodVersion[], now: MethodVersion[]): string | undefined {
@@ -215,12 +215,12 @@ function resolveWorkers(workers: number | undefined): number {
   return n;
 }
 
-/** `todo`: the points to compute, as ascending ranges [from, to, …] (to excluded). */
+/** `pending`: the points to compute, as ascending ranges [from, to, …] (to excluded). */
 async function execute(
   store: Store,
   runId: number,
   prepared: PreparedStudy,
-  todo: number[],
+  pending: number[],
   counts: { results: number; flagged: number },
   workers: number,
   options: RunOptions,
@@ -229,14 +229,14 @@ async function execute(
   const started = performance.now();
   const study = prepared.loaded.study.name;
   const total = prepared.total;
-  const doneAtStart = total - pointsIn(todo);
+  const doneAtStart = total - pointsIn(pending);
   let done = doneAtStart;
   let { results, flagged } = counts;
   options.onStart?.({ runId, study, total, done });
 
   let failure: unknown;
   try {
-    failure = await computeAndWrite(store, runId, prepared, todo, workers, options, pool, (w) => {
+    failure = await computeAndWrite(store, runId, prepared, pending, workers, options, pool, (w) => {
       done += w.points;
       results += w.results;
       flagged += w.flagged;
@@ -273,7 +273,7 @@ function innermostLength(sweep: PreparedStudy['loaded']['study']['sweep']): numb
 }
 
 /**
- * Cuts `todo` (point ranges) into batches, has the pool compute them and writes each one
+ * Cuts `pending` (point ranges) into batches, has the pool compute them and writes each one
  * as it returns. Stops cutting on `stop`, on `cancel` (which also drops batches in
  * flight) or at the first failed batch; resolves with that batch's error, if any. Memory
  * stays that of the batches in flight, whatever the number of points.
@@ -282,13 +282,13 @@ async function computeAndWrite(
   store: Store,
   runId: number,
   prepared: PreparedStudy,
-  todo: number[],
+  pending: number[],
   workers: number,
   options: RunOptions,
   given: SweepPool | undefined,
   onWritten: (w: { points: number; results: number; flagged: number }) => void,
 ): Promise<unknown> {
-  const count = pointsIn(todo);
+  const count = pointsIn(pending);
   if (count === 0) {
     await given?.destroy();
     return undefined;
@@ -335,7 +335,7 @@ async function computeAndWrite(
   // free, so its size uses the latest timing and a stop leaves nothing queued.
   const running = new Set<Promise<void>>();
   try {
-    const cursor = new PointCursor(todo);
+    const cursor = new PointCursor(pending);
     while (!cursor.done && !stopped()) {
       if (running.size >= inFlight) {
         if (!workersStarted) {
