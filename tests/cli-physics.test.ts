@@ -120,6 +120,18 @@ describe('filmsweep solve', () => {
       expect(Array.isArray(row.flags)).toBe(true);
     }
   });
+  it("prints each output of its table with the output's SI unit", () => {
+    const r = runCli([
+      'solve', 'pipe', '--method', 'laminar-developed', '--fluid', 'water', '--set', 'velocity=0.01 m/s', '--set', 'diameter=10 mm',
+      '--set', 'length=10 m', '--set', 'fluid_temperature=20 degC', '--set', 'surface_temperature=40 degC',
+    ]);
+    expect(r.status, r.stderr).toBe(0);
+    const unitOf = (name: string) => new RegExp(`^${name}\\s+(\\S+)\\s`, 'm').exec(r.stdout)?.[1];
+    expect(r.stdout).toMatch(/^output\s+unit\s+laminar-developed/m);
+    expect([unitOf('heat_rate'), unitOf('h'), unitOf('outlet_temperature'), unitOf('mass_flow'), unitOf('pressure_drop'), unitOf('Nu')]).toEqual([
+      'W', 'W/(m^2·K)', 'K', 'kg/s', 'Pa', '-',
+    ]);
+  });
   it('derives Re, Pr and h from a fluid and units', () => {
     const r = runCli([
       'solve', 'pipe', '--method', 'gnielinski', '--fluid', 'water',

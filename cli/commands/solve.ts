@@ -61,6 +61,7 @@ export function register(program: Command) {
       const { summarizePoint } = await import('../../shared/design/summary.js');
       const { getMethod } = await import('../../shared/physics/catalogue.js');
       const { missingInputs, solvePoint } = await import('../../shared/physics/engine.js');
+      const { displayUnit, makeUnitLookup } = await import('../../shared/export/units.js');
       const { parseSets } = await import('../values.js');
       const inputs = parseSets(opts.set);
       if (opts.profiles) inputs.profiles = true;
@@ -94,9 +95,11 @@ export function register(program: Command) {
         return;
       }
       const outputNames = [...new Set(rows.flatMap((r) => Object.keys(r.outputs)))];
-      const body = outputNames.map((n) => [n, ...rows.map((r) => r.outputs[n])]);
-      body.push(['flags', ...rows.map((r) => (r.flags.length ? r.flags.join(' ') : '-'))]);
-      process.stdout.write(`${table(['output', ...rows.map((r) => r.method)], body)}\n`);
+      // Every value with its SI unit (`-` dimensionless), as the exports' headers give them.
+      const unitOf = makeUnitLookup(used.map((id) => getMethod(configuration, id)));
+      const body = outputNames.map((n) => [n, displayUnit(unitOf(n) ?? '?'), ...rows.map((r) => r.outputs[n])]);
+      body.push(['flags', '', ...rows.map((r) => (r.flags.length ? r.flags.join(' ') : '-'))]);
+      process.stdout.write(`${table(['output', 'unit', ...rows.map((r) => r.method)], body)}\n`);
       for (const r of rows) {
         if (!r.profiles) continue;
         const keys = Object.keys(r.profiles);
