@@ -120,17 +120,31 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
       expectResponsive(probe.samples, seconds);
       // Read back with exceljs's streaming reader: every row is there, numbers as numbers.
       const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from(bytes), { sharedStrings: 'cache', worksheets: 'emit' });
-      const rowsBySheet: Record<string, number> = {};
-      let sample: unknown[] | undefined;
+      // A sheet's name is known while it streams only when the zip holds workbook.xml before
+      // it; otherwise the reader calls it Sheet<n>, and the name is looked up once all is read.
+      type SheetReader = { id: string | number; name: string };
+      const read: { sheet: SheetReader; rows: number; second?: unknown[] }[] = [];
       for await (const sheet of reader) {
-        const name = (sheet as unknown as { name: string }).name;
-        rowsBySheet[name] = 0;
+        const entry: (typeof read)[number] = { sheet: sheet as unknown as SheetReader, rows: 0 };
+        read.push(entry);
         for await (const row of sheet) {
-          rowsBySheet[name]++;
-          if (name === 'Results' && row.number === 2) sample = row.values as unknown[];
+          entry.rows++;
+          if (row.number === 2) entry.second = row.values as unknown[];
         }
       }
-      expect(rowsBySheet.Results).toBe(RESULTS + 1);
+      const book = reader as unknown as { workbookRels?: { Id: string; Target: string }[]; model?: { sheets?: { rId: string; name: string }[] } };
+      const nameOf = ({ id, name }: SheetReader) => {
+        if (!/^Sheet\d+$/.test(name)) return name;
+        const rel = book.workbookRels?.find((r) => r.Target === `worksheets/sheet${id}.xml`);
+        return book.model?.sheets?.find((x) => x.rId === rel?.Id)?.name ?? name;
+      };
+      const rowsBySheet: Record<string, number> = {};
+      let sample: unknown[] | undefined;
+      for (const e of read) {
+        rowsBySheet[nameOf(e.sheet)] = e.rows;
+        if (nameOf(e.sheet) === 'Results') sample = e.second;
+      }
+      expect(rowsBySheet.Results, JSON.stringify(rowsBySheet)).toBe(RESULTS + 1);
       expect(rowsBySheet.Run).toBeGreaterThan(10);
       expect(typeof sample![2]).toBe('number'); // Re
       expect(sample![4]).toBe(true); // heating
