@@ -1,6 +1,7 @@
 // Design answers, pure parts (shared/design): targets, bands, the summary across methods.
 import { describe, expect, it } from 'vitest';
 import { compilePointDesigner, evaluateWithFactor, factorRule, isRangeFlag, solveTargetNear, solveTargetValue, type DesignSpec } from '../shared/design/index.js';
+import { decodeSummary, encodeSummaries } from '../shared/design/stored-summaries.js';
 import { getMethod } from '../shared/physics/catalogue.js';
 import { compileSolver, solvePoint, type SolvePlan } from '../shared/physics/engine.js';
 import type { Inputs } from '../shared/physics/types.js';
@@ -238,6 +239,36 @@ describe('summary across methods', () => {
     expect(summary.recommended).toBe('gnielinski');
     expect(summary.applicable).toEqual(['dittus-boelter', 'sieder-tate', 'gnielinski']);
     expect(summary.reason).toContain('gnielinski ±10 %');
+  });
+
+  it('the workers\' columnar summaries store exactly what the facts of each point say (ranges split at gaps)', () => {
+    const designer = compilePointDesigner({ ...pipe, methods: pipeIds }, pipeIds);
+    const encoder = designer.summaryEncoder();
+    const indices: number[] = [];
+    const facts: ReturnType<typeof designer>['facts'][] = [];
+    let k = 0;
+    for (const Re of [100, 1000, 2000, 2500, 5000, 1e4, 1e5, 1e6, 1e7]) {
+      for (const Pr of [0.3, 0.7, 5, 200, 3000]) {
+        const index = k < 20 ? k : k + 7; // a gap: two stored ranges
+        const point = designer({ Re, Pr, L_over_D: 40 }, index);
+        encoder.addRows(index, point.rows);
+        indices.push(index);
+        facts.push(point.facts);
+        k++;
+      }
+    }
+    const columnar = encoder.finish();
+    expect(columnar.map((r) => [r.first, r.end])).toEqual([
+      [0, 20],
+      [27, 52],
+    ]);
+    expect(columnar).toEqual(encodeSummaries(indices, facts, pipeIds));
+    indices.forEach((idx, i) => {
+      const range = columnar.find((r) => idx >= r.first && idx < r.end)!;
+      expect(decodeSummary(range.facts, range.first, idx, pipeIds)).toEqual(facts[i]);
+    });
+    // Both recommendations and "none" occur, so the counts carry both kinds of key.
+    expect(columnar.some((r) => r.counts.includes('"none"'))).toBe(true);
   });
 
   it('a single-method forward solve and the designer give the same rows', () => {

@@ -7,6 +7,7 @@ import type { Inputs } from '../physics/types.js';
 import { drawPoint, forwardBands, targetBands } from './bands.js';
 import type { MethodEvaluator } from './method-factor.js';
 import { explainSummary, summaryFacts, type MethodUncertainty, type SummaryFacts } from './summary.js';
+import { SummaryEncoder } from './stored-summaries.js';
 import { targetRow } from './target.js';
 import type { DesignSpec, PointSummary } from './types.js';
 
@@ -19,7 +20,30 @@ export interface DesignedPoint {
   readonly summary: PointSummary;
 }
 
-export type PointDesigner = (point: Inputs, index: number) => DesignedPoint;
+export type PointDesigner = ((point: Inputs, index: number) => DesignedPoint) & {
+  /** An encoder of the stored summaries of this designer's points (the workers' columnar form). */
+  summaryEncoder(): SummaryEncoder;
+};
+
+/** A point's rows; the facts and their wording are worked out only when read (the workers never read them). */
+class Designed implements DesignedPoint {
+  private known?: SummaryFacts;
+
+  constructor(
+    readonly rows: ResultRow[],
+    private readonly fractions: readonly number[],
+    private readonly uncertainties: readonly MethodUncertainty[],
+    private readonly adjust: string | undefined,
+  ) {}
+
+  get facts(): SummaryFacts {
+    return (this.known ??= summaryFacts(this.rows, this.fractions, this.adjust));
+  }
+
+  get summary(): PointSummary {
+    return explainSummary(this.facts, this.uncertainties, this.rows);
+  }
+}
 
 /**
  * Compiles the plan once per method. `design` undefined (or empty): the plain forward
@@ -31,25 +55,18 @@ export function compilePointDesigner(plan: SolvePlan, methodIds: readonly string
   const uncertainties: MethodUncertainty[] = methodIds.map((id) => ({ id, fraction: getMethod(plan.configuration, id).uncertainty.fraction }));
   const adjust = design?.target?.adjust;
   const fractions = uncertainties.map((u) => u.fraction);
-  const designed = (rows: ResultRow[]): DesignedPoint => {
-    const facts = summaryFacts(rows, fractions, adjust);
-    return {
-      rows,
-      facts,
-      get summary() {
-        return explainSummary(facts, uncertainties, rows);
-      },
-    };
-  };
+  const designed = (rows: ResultRow[]): DesignedPoint => new Designed(rows, fractions, uncertainties, adjust);
+  const withEncoder = (designer: (point: Inputs, index: number) => DesignedPoint): PointDesigner =>
+    Object.assign(designer, { summaryEncoder: () => new SummaryEncoder(methodIds, fractions, adjust) });
   const needsMethods = design !== undefined && (design.target !== undefined || design.uncertainty !== undefined);
   if (!needsMethods) {
-    return (point) => designed(all(point));
+    return withEncoder((point) => designed(all(point)));
   }
   const evaluators: MethodEvaluator[] = methodIds.map((id) => {
     const solve = compileSolver({ ...plan, methods: [id] }, { strict: false });
     return (inputs) => solve(inputs)[0];
   });
-  return (point, index) => {
+  return withEncoder((point, index) => {
     const draws = design.uncertainty ? drawPoint(design, index) : { draws: [] };
     const rows = methodIds.map((id, m) => {
       const evaluate = evaluators[m];
@@ -62,5 +79,5 @@ export function compilePointDesigner(plan: SolvePlan, methodIds: readonly string
       return { ...row, outputs: { ...row.outputs, ...band.outputs }, flags: [...row.flags, ...band.flags] };
     });
     return designed(rows);
-  };
+  });
 }

@@ -23,21 +23,36 @@ export function summarizePoint(rows: readonly ResultRow[], methods: readonly Met
   return explainSummary(summaryFacts(rows, rows.map((r) => fractionOf.get(r.method) ?? Infinity), adjust), methods, rows);
 }
 
+/** The index form of a point's summary facts, filled in place (no allocation per point). */
+export interface SummaryIndices {
+  /** 1 where rows[i]'s method holds at the point (no range flag), else 0; at least rows.length long. */
+  applicable: Uint8Array;
+  /** The recommended row (−1: none applies). */
+  best: number;
+  spread: number | null;
+  spread_of: string | null;
+}
+
+export function summaryScratch(methods: number): SummaryIndices {
+  return { applicable: new Uint8Array(methods), best: -1, spread: null, spread_of: null };
+}
+
 /**
- * The summary's facts alone (what the workers compute for every point of every run, so
- * kept to plain loops): `fractions[i]` is the stated uncertainty of `rows[i]`'s method.
+ * The summary's facts by row index, into `into`: what the workers compute for every point of
+ * every run (columnar, stored-summaries.ts), so kept to plain loops. `fractions[i]` is the
+ * stated uncertainty of `rows[i]`'s method.
  */
-export function summaryFacts(rows: readonly ResultRow[], fractions: readonly number[], adjust?: string): SummaryFacts {
-  const applicable: string[] = [];
+export function fillSummaryIndices(rows: readonly ResultRow[], fractions: readonly number[], adjust: string | undefined, into: SummaryIndices): SummaryIndices {
+  const { applicable } = into;
   let best = -1;
   let anyNu = false;
   let anyNux = false;
   for (let i = 0; i < rows.length; i++) {
     const r = rows[i];
-    let holds = true;
-    for (const f of r.flags) if (isRangeFlag(f)) holds = false;
+    let holds = 1;
+    for (const f of r.flags) if (isRangeFlag(f)) holds = 0;
+    applicable[i] = holds;
     if (!holds) continue;
-    applicable.push(r.method);
     if (best < 0 || fractions[i] < fractions[best]) best = i;
     if (r.outputs.Nu !== undefined) anyNu = true;
     else if (r.outputs.Nu_x !== undefined) anyNux = true;
@@ -49,13 +64,23 @@ export function summaryFacts(rows: readonly ResultRow[], fractions: readonly num
   if (spreadOf !== null) {
     for (let i = 0; i < rows.length; i++) {
       const v = rows[i].outputs[spreadOf];
-      if (!(v > 0) || !Number.isFinite(v) || !applicable.includes(rows[i].method)) continue;
+      if (!(v > 0) || !Number.isFinite(v) || !applicable[i]) continue;
       if (v < lo) lo = v;
       if (v > hi) hi = v;
     }
   }
-  const spread = hi >= lo ? hi / lo - 1 : null;
-  return { applicable, spread, spread_of: spread === null ? null : spreadOf, recommended: best < 0 ? null : rows[best].method };
+  into.best = best;
+  into.spread = hi >= lo ? hi / lo - 1 : null;
+  into.spread_of = into.spread === null ? null : spreadOf;
+  return into;
+}
+
+/** The summary's facts alone, by method id (`show`, the point view, `solve`). */
+export function summaryFacts(rows: readonly ResultRow[], fractions: readonly number[], adjust?: string): SummaryFacts {
+  const f = fillSummaryIndices(rows, fractions, adjust, summaryScratch(rows.length));
+  const applicable: string[] = [];
+  for (let i = 0; i < rows.length; i++) if (f.applicable[i]) applicable.push(rows[i].method);
+  return { applicable, spread: f.spread, spread_of: f.spread_of, recommended: f.best < 0 ? null : rows[f.best].method };
 }
 
 /** What the store keeps of a summary: the facts, without their wording. */

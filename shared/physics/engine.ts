@@ -58,19 +58,26 @@ export function compileSolver(plan: SolvePlan, options: SolveOptions = {}): (inp
   const methods = planMethods(plan);
   const fluid = plan.fluid === undefined ? undefined : resolveFluid(plan.fluid);
   const strict = options.strict ?? false;
-  return (inputs) =>
-    methods.map((m) => {
+  return (inputs) => {
+    if (methods.length === 0) return [];
+    // Whether the point is dimensional is the same for every method: decided once.
+    const dimensional = isDimensionalPoint(inputs, fluid);
+    const rows = new Array<ResultRow>(methods.length);
+    for (let i = 0; i < methods.length; i++) {
+      const m = methods[i];
       try {
-        return solveMethod(m, configuration, fluid, inputs);
+        rows[i] = dimensional ? solveDimensional(m, configuration, fluid!, inputs) : finish(evaluateDimensionless(m, inputs));
       } catch (e) {
         if (strict) throw e;
         const flagged = (flag: string): ResultRow => ({ method: m.id, inputs, outputs: {}, flags: [flag] });
-        if (e instanceof FluidRangeError) return flagged('out-of-range:property_temperature');
-        if (e instanceof PointConflictError) return flagged(e.flag);
-        if (e instanceof MethodDomainError) return flagged('domain-error');
-        throw e;
+        if (e instanceof FluidRangeError) rows[i] = flagged('out-of-range:property_temperature');
+        else if (e instanceof PointConflictError) rows[i] = flagged(e.flag);
+        else if (e instanceof MethodDomainError) rows[i] = flagged('domain-error');
+        else throw e;
       }
-    });
+    }
+    return rows;
+  };
 }
 
 /** One point without a study: what `filmsweep solve` does. */
@@ -98,17 +105,31 @@ export function solvePoint(plan: SolvePlan, inputs: Inputs, options: SolveOption
   return solver(inputs);
 }
 
-function solveMethod(method: Method, configuration: Configuration, fluid: Fluid | undefined, inputs: Inputs): ResultRow {
-  const names = Object.keys(inputs);
-  if (!names.some((k) => dimensionalNames.has(k))) {
+/**
+ * Whether a point is dimensional (a fluid and its temperatures) or dimensionless groups
+ * only; throws when it mixes the two or lacks its fluid.
+ */
+function isDimensionalPoint(inputs: Inputs, fluid: Fluid | undefined): boolean {
+  let dimensional = false;
+  for (const k in inputs) {
+    if (dimensionalNames.has(k)) {
+      dimensional = true;
+      break;
+    }
+  }
+  if (!dimensional) {
     if (fluid) throw new InputError('a fluid was given but no fluid_temperature: properties need a temperature');
-    const engineOnly = names.filter((n) => engineInputNames.has(n));
+    const engineOnly = Object.keys(inputs).filter((n) => engineInputNames.has(n));
     if (engineOnly.length) throw new InputError(`input '${engineOnly[0]}' needs a dimensional point (a fluid and its temperatures)`);
-    return finish(evaluateDimensionless(method, inputs));
+    return false;
   }
   if (!fluid) {
-    throw new InputError(`dimensional inputs (${names.filter((k) => dimensionalNames.has(k)).join(', ')}) need a fluid`);
+    throw new InputError(`dimensional inputs (${Object.keys(inputs).filter((k) => dimensionalNames.has(k)).join(', ')}) need a fluid`);
   }
+  return true;
+}
+
+function solveDimensional(method: Method, configuration: Configuration, fluid: Fluid, inputs: Inputs): ResultRow {
   const ctx: PointContext = {
     method,
     configuration,

@@ -172,11 +172,13 @@ function evaluate(method: Method, inputs: Inputs): MethodResult {
 
 /** A dimensionless point: the method on the inputs it declares (one point feeds several methods). */
 export function evaluateDimensionless(method: Method, inputs: Inputs): ResultRow {
-  const r = evaluate(method, declaredInputs(method, inputs, {}));
+  const r = evaluate(method, declaredInputs(method, inputs, NOTHING_DERIVED));
   const row: ResultRow = { method: method.id, inputs, outputs: r.outputs, flags: r.flags };
   if (r.profiles) row.profiles = r.profiles;
   return row;
 }
+
+const NOTHING_DERIVED: Outputs = Object.freeze({});
 
 /** The inputs a method declares, from the point or else from the derived groups. */
 function declaredInputs(method: Method, inputs: Inputs, derived: Outputs): Inputs {

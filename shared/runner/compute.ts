@@ -6,8 +6,6 @@
 // result-layout.js directly, not the db index: the codec needs no database package.
 import { ResultBatchEncoder } from '../db/result-layout.js';
 import type { PointDesigner } from '../design/point.js';
-import { encodeSummaries } from '../design/stored-summaries.js';
-import type { SummaryFacts } from '../design/summary.js';
 import type { Inputs } from '../physics/types.js';
 // sweep.js directly, not the study index: the index also loads the YAML parser, zod and
 // the unit tables, which would add most of a second to every worker's start.
@@ -20,19 +18,15 @@ export function computeBatch(solve: PointDesigner, sweep: SweepSource, methodIds
   let n = 0;
   for (let r = 0; r < ranges.length; r += 2) n += ranges[r + 1] - ranges[r];
   const encoder = new ResultBatchEncoder(M, n);
-  const indices: number[] = new Array(n);
-  const summaries: SummaryFacts[] = new Array(n);
-  let k = 0;
+  const summaries = solve.summaryEncoder();
   // Walking the sweep once per range: iteratePoints sets up the value lists once, where
   // pointAt would redo that for every point.
   for (let r = 0; r < ranges.length; r += 2) {
     const it = iteratePoints(sweep, ranges[r]);
-    for (let i = ranges[r]; i < ranges[r + 1]; i++, k++) {
+    for (let i = ranges[r]; i < ranges[r + 1]; i++) {
       const point = it.next().value as Inputs;
       encoder.addPoint(i, point);
-      const { rows, facts } = solve(point, i);
-      indices[k] = i;
-      summaries[k] = facts;
+      const { rows } = solve(point, i);
       if (rows.length !== M) throw new Error(`solver returned ${rows.length} rows for ${M} methods`);
       for (let m = 0; m < M; m++) {
         const row = rows[m];
@@ -40,7 +34,8 @@ export function computeBatch(solve: PointDesigner, sweep: SweepSource, methodIds
         // An output that is not a finite number is left out with the flag non-finite:<output> (the encoder's rule).
         encoder.addResult(row.outputs, row.flags);
       }
+      summaries.addRows(i, rows);
     }
   }
-  return { ...encoder.finish(), summaries: encodeSummaries(indices, summaries, methodIds), computeMs: performance.now() - t0 };
+  return { ...encoder.finish(), summaries: summaries.finish(), computeMs: performance.now() - t0 };
 }

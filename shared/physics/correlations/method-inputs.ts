@@ -11,18 +11,23 @@ export class MethodInputs {
   readonly values: Inputs = {};
 
   constructor(
-    private readonly label: string,
+    /** The method (its `configuration/id` names it in errors, built only for an error). */
+    private readonly method: { id: string; configuration: string },
     private readonly specs: readonly InputSpec[],
     raw: Inputs,
   ) {
     for (const spec of specs) {
       const v = raw[spec.name] ?? spec.default;
       if (v === undefined) {
-        if (spec.required) throw new InputError(`${label}: missing input '${spec.name}' (${spec.description})`);
+        if (spec.required) throw new InputError(`${this.label}: missing input '${spec.name}' (${spec.description})`);
         continue;
       }
-      this.values[spec.name] = check(label, spec, v);
+      this.values[spec.name] = check(this, spec, v);
     }
+  }
+
+  get label(): string {
+    return `${this.method.configuration}/${this.method.id}`;
   }
 
   /** A number input; `fallback` covers optional inputs whose default is another input (Pr_s → Pr). */
@@ -52,20 +57,22 @@ export class MethodInputs {
 
 /** Read `raw` for the method `configuration/id` described by `specs`. */
 export function readInputs(method: { id: string; configuration: string; inputs: readonly InputSpec[] }, raw: Inputs) {
-  return new MethodInputs(`${method.configuration}/${method.id}`, method.inputs, raw);
+  return new MethodInputs(method, method.inputs, raw);
 }
 
-function check(label: string, spec: InputSpec, v: InputValue): InputValue {
+function check(owner: { label: string }, spec: InputSpec, v: InputValue): InputValue {
   const type = spec.type ?? 'number';
-  const bad = (what: string) =>
-    new InputError(`${label}: input '${spec.name}' must be ${what}, got ${JSON.stringify(v)}`);
   if (type === 'number') {
-    if (typeof v !== 'number' || !Number.isFinite(v)) throw bad('a finite number');
+    if (typeof v !== 'number' || !Number.isFinite(v)) throw bad(owner, spec, v, 'a finite number');
   } else if (type === 'boolean') {
-    if (typeof v !== 'boolean') throw bad('true or false');
+    if (typeof v !== 'boolean') throw bad(owner, spec, v, 'true or false');
   } else {
-    if (typeof v !== 'string') throw bad('a string');
-    if (spec.choices && !spec.choices.includes(v)) throw bad(`one of ${spec.choices.join(', ')}`);
+    if (typeof v !== 'string') throw bad(owner, spec, v, 'a string');
+    if (spec.choices && !spec.choices.includes(v)) throw bad(owner, spec, v, `one of ${spec.choices.join(', ')}`);
   }
   return v;
+}
+
+function bad(owner: { label: string }, spec: InputSpec, v: InputValue, what: string): InputError {
+  return new InputError(`${owner.label}: input '${spec.name}' must be ${what}, got ${JSON.stringify(v)}`);
 }
