@@ -248,12 +248,19 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
         await store.dialect.run("create function refuse_seq_7() returns trigger language plpgsql as $$ begin if new.seq = 7 then raise exception 'refused'; end if; return new; end $$");
         await store.dialect.run(`create trigger refuse_seq_7 before insert on ${table} for each row execute function refuse_seq_7()`);
       }
-      await expect(writer.write(batch([2, 3]))).rejects.toThrow(/refused/);
+      // The batch's point summaries are part of the same transaction: none is left behind.
+      const summaries = [{ first: 2, end: 4, facts: '{"recommended":[0,0],"applicable":[[0],[0]],"spread":[null,null],"spread_of":[null,null]}', counts: '{"0":2}' }];
+      await expect(writer.write({ ...batch([2, 3]), summaries })).rejects.toThrow(/refused/);
+      expect(await count(`select count(*) as n from point_summaries where run_id = ${id}`)).toBe(0);
       const run = await getRun(store, id);
       expect(run).toMatchObject({ points_done: 2, results_count: 4, flagged_count: 1 });
       expect(await count(`select count(*) as n from ${table}`)).toBe(4);
       expect(await count(`select count(*) as n from ${table} where seq >= 4`)).toBe(0);
       expect((await getRunSummary(store, id)).map((m) => m.points)).toEqual([2, 2]);
+      // Once the database takes the rows, their summaries go in with them.
+      await store.dialect.run(kind === 'sqlite' ? 'drop trigger refuse_seq_7' : `drop trigger refuse_seq_7 on ${table}`);
+      await writer.write({ ...batch([2, 3]), summaries });
+      expect(await count(`select count(*) as n from point_summaries where run_id = ${id} and first_idx = 2 and end_idx = 4`)).toBe(1);
     });
 
     it('is idempotent: a batch written again inserts nothing and leaves the counters alone', async () => {

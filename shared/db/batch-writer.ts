@@ -24,8 +24,19 @@ import { numberPlaceholders } from './dialect.js';
 import { encodeJsonRows, type ColumnKind, type LayoutMapping, type ResultBatch, type RunLayout } from './result-layout.js';
 import { LAYOUT_COLUMNS_SQL, LAYOUT_SHAPES_SQL, layoutAdditions, layoutOf, runTableName, valueColumn } from './result-table.js';
 import type { Store } from './store.js';
+import type { StoredSummaryRange } from '../design/stored-summaries.js';
 
 export type { ResultBatch };
+
+/** A computed batch with its points' design summaries, encoded by the worker (one entry per run of consecutive points). */
+export type SummarizedBatch = (ResultBatch | EncodedBatch) & { summaries?: StoredSummaryRange[] };
+
+/**
+ * Per-point summaries go in the batch's own transaction, first: a point is never stored
+ * without its summary, and a batch written twice (a retried queue job, a resume) adds no
+ * second row for a range that starts at the same point.
+ */
+const SUMMARY_INSERT = 'insert into point_summaries (run_id, first_idx, end_idx, facts, counts) values (?, ?, ?, ?, ?) on conflict do nothing';
 
 /**
  * A batch as JSON text (the form before migrations/0005_run_tables.ts; still accepted, e.g.
@@ -47,8 +58,8 @@ export interface WrittenCounts {
 }
 
 export interface BatchWriter {
-  /** Writes the batch and advances the run's counters by the rows inserted, atomically. */
-  write(batch: ResultBatch | EncodedBatch): Promise<WrittenCounts>;
+  /** Writes the batch (and its summaries) and advances the run's counters by the rows inserted, atomically. */
+  write(batch: SummarizedBatch): Promise<WrittenCounts>;
 }
 
 export interface BatchWriterOptions {
@@ -68,7 +79,7 @@ export function createBatchWriter(store: Store, runId: number, methodIds: readon
         }
         const b = 'columns' in batch ? batch : encodeJsonRows(batch, M);
         checkShape(b, M);
-        return write(b);
+        return write(b, batch.summaries ?? []);
       } catch (e) {
         return Promise.reject(e);
       }
@@ -172,8 +183,9 @@ const MAX_VALUES = 32_000;
 
 const ADVANCE = 'update runs set points_done = points_done + ?, results_count = results_count + ?, flagged_count = flagged_count + ? where id = ?';
 
-function sqliteWriter(sqlite: BetterSqlite3.Database, runId: number, M: number, counters: boolean): (batch: ResultBatch) => Promise<WrittenCounts> {
+function sqliteWriter(sqlite: BetterSqlite3.Database, runId: number, M: number, counters: boolean): (batch: ResultBatch, summaries: StoredSummaryRange[]) => Promise<WrittenCounts> {
   const advance = sqlite.prepare(ADVANCE);
+  const summaryInsert = sqlite.prepare(SUMMARY_INSERT);
   const load = () => layoutOf(sqlite.prepare(LAYOUT_COLUMNS_SQL).all(runId) as Record<string, unknown>[], sqlite.prepare(LAYOUT_SHAPES_SQL).all(runId) as Record<string, unknown>[]);
   // The layout as this process last committed or read it; a failed transaction leaves it as it was.
   let layout: RunLayout | undefined;
@@ -195,7 +207,8 @@ function sqliteWriter(sqlite: BetterSqlite3.Database, runId: number, M: number, 
   const countsUpsert = sqlite.prepare(COUNTS_UPSERT);
   const statsUpsert = sqlite.prepare(STATS_UPSERT('min', 'max'));
 
-  const writeAll = sqlite.transaction((batch: ResultBatch): { counts: WrittenCounts; layout: RunLayout } => {
+  const writeAll = sqlite.transaction((batch: ResultBatch, summaries: StoredSummaryRange[]): { counts: WrittenCounts; layout: RunLayout } => {
+    for (const r of summaries) summaryInsert.run(runId, r.first, r.end, r.facts, r.counts);
     let current = layout ?? load();
     let mapping = current.find(batch);
     if (!mapping) {
@@ -277,11 +290,11 @@ function sqliteWriter(sqlite: BetterSqlite3.Database, runId: number, M: number, 
     return { counts, layout: current };
   });
 
-  return (batch) => {
+  return (batch, summaries) => {
     try {
       // BEGIN IMMEDIATE: take the write lock up front, so waiting for another process happens
       // in the busy handler instead of failing half-way through the batch.
-      const done = retryBusySync(() => writeAll.immediate(batch));
+      const done = retryBusySync(() => writeAll.immediate(batch, summaries));
       layout = done.layout;
       return Promise.resolve(done.counts);
     } catch (e) {
@@ -293,18 +306,24 @@ function sqliteWriter(sqlite: BetterSqlite3.Database, runId: number, M: number, 
 /** Layout changes of one run are serialised by this advisory lock (with the run id as second key). */
 const LAYOUT_LOCK = 0x46_53_57_4c; // "FSWL"
 
-function postgresWriter(pool: pg.Pool, runId: number, M: number, counters: boolean): (batch: ResultBatch) => Promise<WrittenCounts> {
+function postgresWriter(pool: pg.Pool, runId: number, M: number, counters: boolean): (batch: ResultBatch, summaries: StoredSummaryRange[]) => Promise<WrittenCounts> {
   let layout: RunLayout | undefined;
   const load = async (client: pg.PoolClient) =>
     layoutOf(
       (await client.query(numberPlaceholders(LAYOUT_COLUMNS_SQL), [runId])).rows,
       (await client.query(numberPlaceholders(LAYOUT_SHAPES_SQL), [runId])).rows,
     );
-  return (batch) =>
+  return (batch, summaries) =>
     retryDeadlock(async () => {
       const client = await pool.connect();
       try {
         await client.query('begin');
+        if (summaries.length) {
+          await client.query(
+            'insert into point_summaries (run_id, first_idx, end_idx, facts, counts) select $1::int, u.* from unnest($2::int[], $3::int[], $4::text[], $5::text[]) as u on conflict do nothing',
+            [runId, summaries.map((r) => r.first), summaries.map((r) => r.end), summaries.map((r) => r.facts), summaries.map((r) => r.counts)],
+          );
+        }
         let current = layout ?? (await load(client));
         let mapping = current.find(batch);
         if (!mapping) {

@@ -30,7 +30,7 @@ export {
   type NewRunSpec,
   type RunSource,
 } from './runs.js';
-export { createBatchWriter, type BatchWriter, type BatchWriterOptions, type EncodedBatch, type WrittenCounts } from './batch-writer.js';
+export { createBatchWriter, type BatchWriter, type BatchWriterOptions, type EncodedBatch, type SummarizedBatch, type WrittenCounts } from './batch-writer.js';
 export { ResultBatchEncoder, RunLayout, type ResultBatch, type ResultColumn, type ResultShape, type ColumnKind } from './result-layout.js';
 export { convertLegacyRun } from './legacy-results.js';
 export { immediateTransaction } from './transaction.js';

@@ -1,40 +1,13 @@
 // Per-point design summaries in the store (migrations/0004_point_summaries.ts): written
-// by the runner beside each batch, read by `show`, the exports and the API's point view.
-import { decodeRecommended, decodeSummary, type StoredSummaryRange } from '../design/stored-summaries.js';
+// in each batch's transaction (batch-writer.ts), read by `show`, the exports and the API's point view.
+import { decodeRecommended, decodeSummary } from '../design/stored-summaries.js';
 import type { SummaryFacts } from '../design/summary.js';
 import type { ResultRow } from '../physics/engine.js';
 import type { Inputs, Outputs } from '../physics/types.js';
-import type { BatchWriter, EncodedBatch, WrittenCounts } from './batch-writer.js';
 import { sql } from 'kysely';
 import { jsonTextSql } from './dialect.js';
-import type { ResultBatch } from './result-layout.js';
 import { eachStoredResult, hasRunTable, runTableName } from './result-table.js';
 import type { Store } from './store.js';
-
-/** A computed batch with its points' summaries, encoded by the worker (one entry per run of consecutive points). */
-export type SummarizedBatch = (ResultBatch | EncodedBatch) & { summaries?: StoredSummaryRange[] };
-
-/**
- * The store's batch writer with the batch's summaries written first, in their own
- * transaction (a row or two per batch): a point is never stored without its summary, and
- * a batch written twice (a retried queue job, a resume) adds no second row for a range
- * that starts at the same point (on conflict do nothing).
- */
-export function withPointSummaries(store: Store, runId: number, writer: BatchWriter): { write(batch: SummarizedBatch): Promise<WrittenCounts> } {
-  return {
-    async write(batch) {
-      if (batch.summaries?.length) {
-        await store.dialect.atomic(
-          batch.summaries.map((r) => ({
-            sql: 'insert into point_summaries (run_id, first_idx, end_idx, facts, counts) values (?, ?, ?, ?, ?) on conflict do nothing',
-            params: [runId, r.first, r.end, r.facts, r.counts],
-          })),
-        );
-      }
-      return writer.write(batch);
-    },
-  };
-}
 
 async function methodIdsOf(store: Store, runId: number): Promise<string[] | undefined> {
   const run = await store.db.selectFrom('runs').select('methods').where('id', '=', runId).executeTakeFirst();

@@ -2,8 +2,7 @@
 // store (as `resume` does: from the stored study text, never a file on disk) and kept
 // while jobs of that run keep coming.
 import { UnrecoverableError } from 'bullmq';
-import { createBatchWriter, getRunSource, withPointSummaries, type MethodVersion, type Store, type WrittenCounts } from '../db/index.js';
-import type { SummarizedBatch } from '../db/point-summaries.js';
+import { createBatchWriter, getRunSource, type BatchWriter, type MethodVersion, type Store } from '../db/index.js';
 import { prepareStudy, workerDataOf } from '../runner/run-study.js';
 import { createPool, type SweepPool } from '../runner/pool.js';
 import { parseStudy } from '../study/index.js';
@@ -17,7 +16,7 @@ export interface RunContext {
    * The store's batch writer, which is idempotent: a job that runs twice (its worker died
    * after the commit but before telling Redis) inserts nothing and counts nothing again.
    */
-  writer: { write(batch: SummarizedBatch): Promise<WrittenCounts> };
+  writer: BatchWriter;
   /** Jobs of this run in hand. */
   users: number;
 }
@@ -45,7 +44,7 @@ export async function loadRunContext(store: Store, runId: number, hash: string, 
 
   const methodIds = prepared.methods.map((m) => m.id);
   const pool = createPool(workers, workerDataOf(prepared));
-  return { runId, hash, pool, writer: withPointSummaries(store, runId, createBatchWriter(store, runId, methodIds)), users: 0 };
+  return { runId, hash, pool, writer: createBatchWriter(store, runId, methodIds), users: 0 };
 }
 
 function describeMethods(methods: MethodVersion[]): string {

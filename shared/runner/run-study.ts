@@ -19,10 +19,10 @@ import {
   getRunSource,
   openStore,
   resumeRefusal,
+  type BatchWriter,
   type MethodVersion,
   type RunStatus,
   type Store,
-  withPointSummaries,
 } from '../db/index.js';
 import type { WorkerData } from './batch-task.js';
 import { BatchSizer } from './batches.js';
@@ -294,9 +294,9 @@ async function computeAndWrite(
     return undefined;
   }
   const pool = given ?? poolFor(prepared, workers);
-  let writer: ReturnType<typeof withPointSummaries>;
+  let writer: BatchWriter;
   try {
-    writer = withPointSummaries(store, runId, createBatchWriter(store, runId, prepared.methods.map((m) => m.id)));
+    writer = createBatchWriter(store, runId, prepared.methods.map((m) => m.id));
   } catch (e) {
     await pool.destroy();
     throw e;
