@@ -104,6 +104,8 @@ describe('uploading studies', () => {
     expect(studies[0]).toMatchObject({ name: 'dash-upload', versions: 1, last_run: { id: up.body.run.id } });
     // The run names its study's id, so the run page links and lists measurements without a search.
     expect(done.study_id).toBe(studies[0].id);
+    // … and its configuration's regime, the chart's default abscissa (a pipe: forced, internal).
+    expect(done.regime).toBe('internal');
     const detail = (await viewer.json('GET', `/api/studies/${studies[0].id}`)).body;
     expect(detail.versions[0].yaml).toBe(PIPE('dash-upload', '[0.7, 5]', 12));
     expect(detail.runs.map((r: any) => r.id)).toEqual([up.body.run.id]);

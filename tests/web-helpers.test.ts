@@ -3,7 +3,7 @@
 // from the API contract (common practice; no external reference needed).
 import { describe, expect, it } from 'vitest';
 import { describeFlag } from '../shared/chart/flags.js';
-import { autoLog, buildChartOption, hiddenOnLogAxes, wrap } from '../web/src/lib/chart-option.js';
+import { autoLog, buildChartOption, hiddenOnLogAxes, LARGE_SERIES_POINTS, wrap } from '../web/src/lib/chart-option.js';
 import { defaultChoice, seriesProblem } from '../web/src/lib/chart-defaults.js';
 import { readTemperatureUnit, storageKey } from '../web/src/lib/display-units.js';
 import { escapeHtml } from '../web/src/lib/escape-html.js';
@@ -265,6 +265,23 @@ describe('chart option', () => {
     expect(o.series.find((s) => s.name === 'measured: rig A')!.data).toEqual([[2e4, 70]]);
     expect(hiddenOnLogAxes(data, { xLog: true, yLog: true, quantities })).toBe(2);
     expect(hiddenOnLogAxes(data, { xLog: false, yLog: false, quantities })).toBe(0);
+  });
+
+  it('draws a cloud of more than LARGE_SERIES_POINTS points as one path, its flagged points on top under the same name', () => {
+    // Several Pr per Re: not joined by a line, so a scatter.
+    const points: ChartData['series'][number]['points'] = [];
+    for (let i = 0; i < 400; i++) for (const Pr of [1, 2]) points.push([1e4 + 100 * i, 40 + i + Pr, i === 7 && Pr === 2 ? 1 : 0, ...(i === 7 && Pr === 2 ? [0] : [])] as never);
+    const cloud: ChartData = { ...data, measured: undefined, series: [{ name: 'gnielinski', method: 'gnielinski', points }, data.series[1]] };
+    const o = buildChartOption(cloud, { xLog: true, yLog: true, bandMethod: null, quantities }) as { series: (S & { large?: boolean })[] };
+    const g = o.series.filter((s) => s.name === 'gnielinski');
+    expect(points.length).toBeGreaterThan(LARGE_SERIES_POINTS);
+    expect(g).toHaveLength(2);
+    expect(g[0]).toMatchObject({ type: 'scatter', large: true });
+    expect(g[0].data).toHaveLength(points.length - 1);
+    expect(g[1].large).toBeUndefined();
+    expect(g[1].data).toEqual([expect.objectContaining({ value: [1e4 + 700, 49], flagged: 1, symbol: 'diamond' })]);
+    // A small series keeps its own symbols (hover emphasis, per-point styles).
+    expect(o.series.find((s) => s.name === 'dittus-boelter')!.large).toBeUndefined();
   });
 
   it('says in the tooltip which range a flagged point broke, and escapes every name', () => {

@@ -11,6 +11,7 @@ import { getRunColumns, MAX_PAGE_SIZE, NAME_PATTERN, queryResults, type RangeFil
 import { findStudyByName, getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
 import { runRowSource } from '../../shared/db/run-rows.js';
 import { exportFormats, makeUnitLookup, mediaTypes, OutputClosedError, runMethodSpecs, writeRunExport, xlsxTooLong, type ExportFormat } from '../../shared/export/index.js';
+import { findConfiguration } from '../../shared/physics/configurations.js';
 import { InputError } from '../../shared/physics/types.js';
 import { processAlive } from '../../shared/runner/index.js';
 import type { AppContext } from '../context.js';
@@ -108,7 +109,9 @@ export function runsRouter(ctx: AppContext): Router {
     const details = await getRunDetails(ctx.store, id);
     // study_id: the run page links its study and lists its measurements without searching by name.
     const study = await findStudyByName(ctx.store, run.study);
-    res.json({ run, study_id: study?.id ?? null, summary: await getRunSummary(ctx.store, id), error: details?.error ?? null, columns: await getRunColumns(ctx.store, id) });
+    // regime: the chart's default abscissa (Re forced, Ra free) without the whole catalogue.
+    const regime = findConfiguration(run.configuration)?.regime ?? null;
+    res.json({ run, study_id: study?.id ?? null, regime, summary: await getRunSummary(ctx.store, id), error: details?.error ?? null, columns: await getRunColumns(ctx.store, id) });
   });
 
   r.get('/:id/results', async (req, res) => {

@@ -2,7 +2,8 @@
 // still loading: the route prefetches the run, the catalogue, the axis facts, the first
 // results page and the default chart (App.tsx), and the page then finds them in the query
 // cache instead of asking again. Tested by holding the run page's chunk back: every request
-// must already have gone out while it is held, and none is asked twice.
+// must already have gone out while it is held, and none is asked twice. Opened straight at
+// a run, the same (the router would run the route's loader only once the chunk is in).
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -45,6 +46,29 @@ describe.skipIf(!existsSync(CHROMIUM))('run page data prefetched by its route', 
     for (const wanted of [`/api/runs/${run}`, '/api/methods', `/api/runs/${run}/chart/axes`, `/api/runs/${run}/results`, `/api/runs/${run}/chart`]) {
       expect(seenWhileHeld.map(base), `${wanted} asked while the page code was held`).toContain(wanted);
       expect(api.map(base).filter((u) => u === wanted), `${wanted} asked once`).toHaveLength(1);
+    }
+    await context.close();
+  });
+
+  it('opened straight at a run (a link, a reload), asks for its data and default chart before the page code has loaded', async () => {
+    const { context, page } = await signedIn(d, 'viewer');
+    const run = d.runs[0];
+    let held = true;
+    const seenWhileHeld: string[] = [];
+    page.on('request', (r) => {
+      const url = r.url().slice(d.base.length);
+      if (url.startsWith('/api/') && held) seenWhileHeld.push(url.split('?')[0]);
+    });
+    await page.route(/\/assets\/RunPage-[^/]+\.js$/, async (route) => {
+      await new Promise((r) => setTimeout(r, 1500));
+      held = false;
+      await route.continue();
+    });
+    await page.goto(`${d.base}/#/runs/${run}`);
+    await page.getByRole('table', { name: 'Results' }).locator('tbody tr').first().waitFor();
+    await page.locator('[data-testid="chart"][data-drawn] svg').waitFor();
+    for (const wanted of [`/api/runs/${run}`, `/api/runs/${run}/chart/axes`, `/api/runs/${run}/results`, `/api/runs/${run}/chart`]) {
+      expect(seenWhileHeld, `${wanted} asked while the page code was held`).toContain(wanted);
     }
     await context.close();
   });

@@ -4,7 +4,7 @@ import { MutationCache, QueryCache, QueryClient, QueryClientProvider } from '@ta
 import type { ComponentType } from 'react';
 import { createHashRouter, Navigate, RouterProvider } from 'react-router-dom';
 import { ApiError } from './api/client.js';
-import { sessionEnded, sessionQuery } from './api/session.js';
+import { sessionEnded, sessionQuery, signedInHint } from './api/session.js';
 import { catalogueQuery } from './api/methods.js';
 import { chartAxesQuery, chartQuery, resultsQuery, runQuery } from './api/runs.js';
 import { chartQueryFor, defaultChoice, startingChoice } from './lib/chart-defaults.js';
@@ -45,29 +45,35 @@ void queryClient.prefetchQuery(sessionQuery);
 
 /**
  * The run page's data, asked for while its code (and ECharts) loads: the run, the catalogue,
- * the chart's axis facts, the first results page and the default chart. Only once the session is known, so a
- * signed-out visit asks for nothing. Returns at once: the page shows its own loading state.
+ * the chart's axis facts, the first results page and the default chart. Only with the
+ * signed-in hint, so a signed-out visit asks for nothing. Returns at once: the page shows
+ * its own loading state.
  */
 function prefetchRun({ params }: { params: { id?: string } }) {
   const id = routeId(params.id);
-  if (id !== undefined) {
-    void queryClient.fetchQuery(sessionQuery).then((session) => {
-      if (!session) return;
-      void queryClient.prefetchQuery(resultsQuery(id, defaultResultQuery));
-      // The default chart, as RunChart would ask for it, once the facts it starts from are in.
-      void Promise.all([queryClient.fetchQuery(runQuery(id)), queryClient.fetchQuery(catalogueQuery), queryClient.fetchQuery(chartAxesQuery(id))])
-        .then(([{ run }, catalogue, axes]) => {
-          const regime = catalogue.configurations.find((c) => c.id === run.configuration)?.regime;
-          const facts = axes.names;
-          const choice = startingChoice(facts, defaultChoice(facts, regime, axes.target, run.methods.length), {});
-          const query = chartQueryFor(facts, choice, { ...defaultResultQuery, drawnMethods: run.methods.length });
-          if (query) void queryClient.prefetchQuery(chartQuery(id, query));
-        })
-        .catch(() => undefined); // the page asks again and shows the error
-    });
-  }
+  if (id === undefined || !signedInHint()) return null;
+  // Asked at once, beside the session (the hint says this browser signed in; a session that
+  // expired meanwhile costs these requests a 401 once, and the page then goes to sign-in):
+  // the server answers them while the browser loads and runs the page's code.
+  void queryClient.prefetchQuery(resultsQuery(id, defaultResultQuery));
+  // The default chart, as RunChart asks for it, once the run (its regime) and the chart's axes are in.
+  void Promise.all([queryClient.fetchQuery(runQuery(id)), queryClient.fetchQuery(chartAxesQuery(id))])
+    .then(([{ run, regime }, axes]) => {
+      const facts = axes.names;
+      const choice = startingChoice(facts, defaultChoice(facts, regime ?? undefined, axes.target, run.methods.length), {});
+      const query = chartQueryFor(facts, choice, { ...defaultResultQuery, drawnMethods: run.methods.length });
+      if (query) void queryClient.prefetchQuery(chartQuery(id, query));
+    })
+    .catch(() => undefined); // the page asks again and shows the error
+  void queryClient.prefetchQuery(catalogueQuery);
   return null;
 }
+
+// Opened straight at a run (a link, a reload): its data is asked for now, beside the
+// session, not after the page's code has loaded (the router runs a lazy route's loader
+// only then).
+const opened = /^#\/runs\/([^/?]+)$/.exec(window.location.hash);
+if (opened) prefetchRun({ params: { id: opened[1] } });
 
 const router = createHashRouter([
   { path: '/sign-in', element: <SignInPage /> },

@@ -9,6 +9,8 @@ export interface RunResponse {
   run: RunInfo;
   /** The run's study (null only for a study removed since). */
   study_id: number | null;
+  /** The configuration's flow regime (null: a configuration this build does not know). */
+  regime: 'external' | 'internal' | 'free' | null;
   summary: MethodSummary[];
   error: string | null;
   columns: RunColumns;

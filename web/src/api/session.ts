@@ -17,6 +17,11 @@ export const sessionKey = ['session'] as const;
 // (a browser that signed in before the hint existed) leads to the sign-in page once.
 const HINT = 'filmsweep.signed-in';
 
+/** Whether this browser says it holds a session (pages may ask for their data before the session answers). */
+export function signedInHint(): boolean {
+  return hinted();
+}
+
 function hinted(): boolean {
   try {
     return localStorage.getItem(HINT) === '1';

@@ -1,6 +1,6 @@
 // A React wrapper around one ECharts instance (SVG renderer), resized with its box.
 // `onPointer` reports the data coordinates under the pointer (for a crosshair read-out);
-// `onItemClick` reports a clicked data item.
+// `onItemClick` reports a clicked data item. The box gets data-drawn once the series are drawn.
 import { useEffect, useRef } from 'react';
 import type { EChartsCoreOption } from 'echarts/core';
 import { echarts } from './echarts-setup.js';
@@ -50,6 +50,11 @@ export function EChart({ option, height = 460, label, testId = 'chart', onPointe
     const out = () => handlers.current.onPointer?.(null);
     zr.on('mousemove', move);
     zr.on('globalout', out);
+    // data-drawn: the series are on screen (renderer-agnostic; large series are one path).
+    instance.on('finished', () => {
+      const series = (instance.getOption()?.series as unknown[] | undefined) ?? [];
+      if (series.length) el.dataset.drawn = 'true';
+    });
     instance.on('click', (p) => handlers.current.onItemClick?.({ seriesIndex: p.seriesIndex ?? -1, dataIndex: p.dataIndex, data: p.data }));
     return () => {
       observer.disconnect();

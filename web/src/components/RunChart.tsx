@@ -7,7 +7,6 @@
 import { useId, useMemo, useState } from 'react';
 import { useNavigate } from 'react-router-dom';
 import type { Measurement } from '../api/measurements.js';
-import { useCatalogue } from '../api/methods.js';
 import { useChart, useChartAxes } from '../api/runs.js';
 import type { AxisFacts, ChartData, RunInfo } from '../api/types.js';
 import { chartQueryFor, defaultChoice, numeric, secondInputs, seriesProblem, startingChoice, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
@@ -28,13 +27,13 @@ interface Props {
   measurements: Measurement[];
   live: boolean;
   quantities: Quantities;
+  /** The configuration's flow regime (GET /api/runs/:id): the default abscissa follows it. */
+  regime: string | undefined;
 }
 
-export function RunChart({ run, methods, flagged, filters, measurements, live, quantities }: Props) {
+export function RunChart({ run, methods, flagged, filters, measurements, live, quantities, regime }: Props) {
   const id = useId();
-  const catalogue = useCatalogue();
   const axes = useChartAxes(run.id, live);
-  const regime = catalogue.data?.configurations.find((c) => c.id === run.configuration)?.regime;
   const facts = axes.data?.names ?? [];
   const [chosen, setChosen] = useState<Partial<ChartChoice>>({});
   const [logChoice, setLogChoice] = useState<{ x?: boolean; y?: boolean }>({});

@@ -36,6 +36,9 @@ export const CHART_FONT = FONT_SANS;
 export const VALUE_SYMBOLS = ['circle', 'rect', 'triangle', 'diamond', 'roundRect', 'pin', 'arrow', 'emptyCircle'] as const;
 export const VALUE_DASHES: (string | number[])[] = ['solid', 'dashed', 'dotted', [10, 3, 2, 3], [14, 4], [2, 5], [10, 3, 2, 3, 2, 3], [5, 2]];
 
+/** Points of one unjoined series above which it is drawn as a single path (large mode). */
+export const LARGE_SERIES_POINTS = 600;
+
 /** `bandMethod` for the stored bands of every method at once. */
 export const EVERY_METHOD = '*';
 /** Colour of the rules that mark where a target was not reached (the hot side's ember). */
@@ -165,19 +168,30 @@ export function buildChartOption(data: ChartData, look: ChartLook): EChartsCoreO
     });
     if (joined) for (const x of gaps) items.push({ value: [x, '-'] });
     items.sort((a, b) => (a.value as number[])[0] - (b.value as number[])[0]);
-    series.push({
-      type: joined ? 'line' : 'scatter',
+    // A cloud of points (no joining line) past LARGE_SERIES_POINTS is drawn as one path
+    // (ECharts' large mode): a thousand SVG elements cost the page a third of a second.
+    // Large mode draws every point alike, so its flagged points (hollow diamonds) go on
+    // top in a series of the same name, which the legend shows and hides with it.
+    const large = !joined && items.length > LARGE_SERIES_POINTS;
+    const common = {
       name,
       color: colour,
       symbol,
-      showSymbol: true,
       symbolSize: joined ? 6 : 7,
-      lineStyle: { width: 1.6, type: styled ? VALUE_DASHES[k % VALUE_DASHES.length] : 'solid' },
-      emphasis: { focus: 'series' },
       cursor: 'pointer',
       ...axis,
-      data: items,
+    };
+    series.push({
+      ...common,
+      type: joined ? 'line' : 'scatter',
+      showSymbol: true,
+      lineStyle: { width: 1.6, type: styled ? VALUE_DASHES[k % VALUE_DASHES.length] : 'solid' },
+      ...(large ? { large: true, largeThreshold: LARGE_SERIES_POINTS } : { emphasis: { focus: 'series' } }),
+      data: large ? items.filter((item) => !item.flagged) : items,
     });
+    if (large && items.some((item) => item.flagged)) {
+      series.push({ ...common, type: 'scatter', emphasis: { focus: 'series' }, data: items.filter((item) => item.flagged) });
+    }
     if (!by) legendData.push(name);
     const wanted = look.bandMethod === EVERY_METHOD || s.method === look.bandMethod;
     if (wanted && joined && pts.length > 1) {

@@ -143,7 +143,7 @@ function RunView({ id }: { id: number }) {
 
       <section className="card" aria-labelledby="chart-heading">
         <h2 id="chart-heading" className="card-title">Chart</h2>
-        <RunChart run={info} methods={query.methods} flagged={query.flagged} filters={query.filters} measurements={measurements.data?.measurements ?? []} live={live} quantities={quantities} />
+        <RunChart run={info} methods={query.methods} flagged={query.flagged} filters={query.filters} measurements={measurements.data?.measurements ?? []} live={live} quantities={quantities} regime={run.data.regime ?? undefined} />
       </section>
 
       <section className="card" aria-labelledby="results-heading">
