@@ -38,7 +38,6 @@ export const ROUTES: readonly RouteAccess[] = [
   { method: 'GET', path: '/api/runs/:id/results', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/chart', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/chart/axes', access: 'viewer' },
-  { method: 'GET', path: '/api/runs/:id/chart/default', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/export', access: 'viewer' },
   { method: 'GET', path: '/api/runs/:id/points/:point', access: 'viewer' },
   { method: 'POST', path: '/api/runs/:id/reference', access: 'lead' },

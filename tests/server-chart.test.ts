@@ -160,18 +160,6 @@ describe.each(STORE_KINDS)('chart API on %s', (kind) => {
     expect((await viewer.json('GET', '/api/runs/999999/chart/axes')).status).toBe(404);
   });
 
-  it('resolves the starting chart itself (chart/default): the query the page would ask, and exactly its answer', async () => {
-    const r = await viewer.json('GET', `/api/runs/${runs.pipe.run}/chart/default`);
-    expect(r.status).toBe(200);
-    // A pipe (forced convection): Nu against Re, one series per method (the page's defaults, shared/chart/defaults.ts).
-    expect(r.body.query).toMatchObject({ x: 'Re', y: 'Nu', methods: [], filters: [], max: 2000 });
-    const { x, y, series, max } = r.body.query;
-    const asked = await viewer.json('GET', `/api/runs/${runs.pipe.run}/chart?x=${x}&y=${y}&series=${series}&max=${max}`);
-    expect(r.body.chart).toEqual(asked.body);
-    expect((await viewer.json('GET', '/api/runs/999999/chart/default')).status).toBe(404);
-    expect((await viewer.json('GET', `/api/runs/${runs.pipe.run}/chart/default?x=Re`)).status).toBe(400);
-  });
-
   it('thins a large run from a fixed sample of whole points: real results, bounded, the same every time', async () => {
     const { rows } = await getRunRows(s.store, runs.grid.run);
     expect(rows.length).toBe(2000);

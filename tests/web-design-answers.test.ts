@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import type { PointRow } from '../web/src/api/points.js';
 import type { AxisFacts, ChartData } from '../web/src/api/types.js';
-import { defaultChoice } from '../shared/chart/defaults.js';
+import { defaultChoice } from '../web/src/lib/chart-defaults.js';
 import { buildChartOption, EVERY_METHOD, NOT_REACHED } from '../web/src/lib/chart-option.js';
 import { bandReach, formatInterval, headlineName, outputLines } from '../web/src/lib/point-view.js';
 import { routeId, routeIndex } from '../web/src/lib/route-id.js';

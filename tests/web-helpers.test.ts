@@ -4,7 +4,7 @@
 import { describe, expect, it } from 'vitest';
 import { describeFlag } from '../shared/chart/flags.js';
 import { autoLog, buildChartOption, hiddenOnLogAxes, LARGE_SERIES_POINTS, wrap } from '../web/src/lib/chart-option.js';
-import { defaultChoice, seriesProblem } from '../shared/chart/defaults.js';
+import { defaultChoice, seriesProblem } from '../web/src/lib/chart-defaults.js';
 import { readTemperatureUnit, storageKey } from '../web/src/lib/display-units.js';
 import { escapeHtml } from '../web/src/lib/escape-html.js';
 import { flagText } from '../web/src/lib/flag-text.js';

@@ -11,7 +11,6 @@ import { getRunColumns, MAX_PAGE_SIZE, NAME_PATTERN, queryResults, type RangeFil
 import { findStudyByName, getDashboardRun, getStudyName, listDashboardRuns, setRunReference } from '../../shared/db/studies.js';
 import { runRowSource } from '../../shared/db/run-rows.js';
 import { exportFormats, makeUnitLookup, mediaTypes, OutputClosedError, runMethodSpecs, writeRunExport, xlsxTooLong, type ExportFormat } from '../../shared/export/index.js';
-import { chartQueryFor, defaultChoice, startingChoice } from '../../shared/chart/defaults.js';
 import { findConfiguration } from '../../shared/physics/configurations.js';
 import { InputError } from '../../shared/physics/types.js';
 import { processAlive } from '../../shared/runner/index.js';
@@ -134,26 +133,6 @@ export function runsRouter(ctx: AppContext): Router {
     const m = await getMeasurement(ctx.store, q.measurement);
     if (!m || (await getStudyName(ctx.store, m.measurement.study_id)) !== run.study) throw notFound(`measurement ${q.measurement} of study ${run.study}`);
     res.json({ ...chart, measured: await measuredOverlay(ctx.store, run, { name: m.measurement.name, rows: m.rows }, q.x, q.y, q.series === 'method' ? undefined : q.series) });
-  });
-
-  // The chart the run page starts on, resolved here from the axis facts, the regime and the
-  // run's methods by the same code as the page (shared/chart/defaults.ts): the page asks for
-  // it the moment it opens instead of waiting for the run and the axes first. `query` is
-  // what GET /:id/chart would have been asked (null: no default can be drawn).
-  r.get('/:id/chart/default', async (req, res) => {
-    const { id } = parse(idParams, req.params, 'params');
-    parse(z.object({}).strict(), req.query, 'query');
-    const run = await getDashboardRun(ctx.store, id);
-    if (!run) throw notFound(`run ${id}`);
-    const axes = await chartAxes(ctx.store, id);
-    const regime = findConfiguration(run.configuration)?.regime;
-    const facts = axes.names;
-    const drawnMethods = run.methods.length;
-    const choice = startingChoice(facts, defaultChoice(facts, regime, axes.target, drawnMethods), {});
-    const query = chartQueryFor(facts, choice, { methods: [], drawnMethods, flagged: 'any', filters: [] });
-    if (!query) return res.json({ query: null, chart: null });
-    const chart = await chartData(ctx.store, id, { x: query.x, y: query.y, series: query.series, flagged: 'any', filters: [], max: query.max });
-    res.json({ query, chart });
   });
 
   // Facts about every input and output (swept or fixed, range, distinct values) for the

@@ -6,7 +6,8 @@ import { createHashRouter, Navigate, RouterProvider } from 'react-router-dom';
 import { ApiError } from './api/client.js';
 import { sessionEnded, sessionQuery, signedInHint } from './api/session.js';
 import { catalogueQuery } from './api/methods.js';
-import { chartAxesQuery, prefetchDefaultChart, resultsQuery, runQuery } from './api/runs.js';
+import { chartAxesQuery, chartQuery, resultsQuery, runQuery } from './api/runs.js';
+import { chartQueryFor, defaultChoice, startingChoice } from './lib/chart-defaults.js';
 import { defaultResultQuery } from './lib/result-query.js';
 import { routeId } from './lib/route-id.js';
 import { Layout } from './components/Layout.js';
@@ -53,15 +54,26 @@ function prefetchRun({ params }: { params: { id?: string } }) {
   if (id === undefined || !signedInHint()) return null;
   // Asked at once, beside the session (the hint says this browser signed in; a session that
   // expired meanwhile costs these requests a 401 once, and the page then goes to sign-in):
-  // the server answers them while the browser loads and runs the page's code. The starting
-  // chart is resolved by the server, so it need not wait for the run and the axis facts.
-  if (!queryClient.getQueriesData({ queryKey: ['chart', id] }).length) prefetchDefaultChart(id);
+  // the server answers them while the browser loads and runs the page's code.
   void queryClient.prefetchQuery(resultsQuery(id, defaultResultQuery));
-  void queryClient.prefetchQuery(runQuery(id));
-  void queryClient.prefetchQuery(chartAxesQuery(id));
+  // The default chart, as RunChart asks for it, once the run (its regime) and the chart's axes are in.
+  void Promise.all([queryClient.fetchQuery(runQuery(id)), queryClient.fetchQuery(chartAxesQuery(id))])
+    .then(([{ run, regime }, axes]) => {
+      const facts = axes.names;
+      const choice = startingChoice(facts, defaultChoice(facts, regime ?? undefined, axes.target, run.methods.length), {});
+      const query = chartQueryFor(facts, choice, { ...defaultResultQuery, drawnMethods: run.methods.length });
+      if (query) void queryClient.prefetchQuery(chartQuery(id, query));
+    })
+    .catch(() => undefined); // the page asks again and shows the error
   void queryClient.prefetchQuery(catalogueQuery);
   return null;
 }
+
+// Opened straight at a run (a link, a reload): its data is asked for now, beside the
+// session, not after the page's code has loaded (the router runs a lazy route's loader
+// only then).
+const opened = /^#\/runs\/([^/?]+)$/.exec(window.location.hash);
+if (opened) prefetchRun({ params: { id: opened[1] } });
 
 const router = createHashRouter([
   { path: '/sign-in', element: <SignInPage /> },

@@ -69,40 +69,9 @@ export function useResults(id: number, query: ResultQuery, live: boolean) {
 }
 
 /** One chart of a run (the route prefetches the default one). */
-/** The run page's starting chart as the server resolved it (GET /api/runs/:id/chart/default). */
-export interface DefaultChart {
-  query: ChartQuery | null;
-  chart: ChartData | null;
-}
-
-/** Per run, the default chart asked for when the page opened, until a chart query takes it. */
-const defaultCharts = new Map<number, Promise<DefaultChart | null>>();
-
-/**
- * Asks for the run's starting chart at once (no need to wait for the run and its axis
- * facts): the chart query that turns out to be the same request takes its answer instead
- * of asking again.
- */
-export function prefetchDefaultChart(id: number) {
-  if (defaultCharts.has(id)) return;
-  defaultCharts.set(
-    id,
-    api<DefaultChart>(`/api/runs/${id}/chart/default`).catch(() => null), // the page asks again and shows the error
-  );
-}
-
 export const chartQuery = (id: number, query: ChartQuery | null) => ({
   queryKey: ['chart', id, query],
-  queryFn: async () => {
-    // The page's first chart request takes the starting chart or drops it (never an old one later).
-    const pending = defaultCharts.get(id);
-    defaultCharts.delete(id);
-    if (pending && query) {
-      const given = await pending;
-      if (given?.query && given.chart && chartSearch(given.query) === chartSearch(query)) return given.chart;
-    }
-    return api<ChartData>(`/api/runs/${id}/chart?${chartSearch(query!)}`);
-  },
+  queryFn: () => api<ChartData>(`/api/runs/${id}/chart?${chartSearch(query!)}`),
   staleTime: PREFETCHED_FRESH_MS,
 });
 

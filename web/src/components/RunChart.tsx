@@ -9,7 +9,7 @@ import { useNavigate } from 'react-router-dom';
 import type { Measurement } from '../api/measurements.js';
 import { useChart, useChartAxes } from '../api/runs.js';
 import type { AxisFacts, ChartData, RunInfo } from '../api/types.js';
-import { chartQueryFor, defaultChoice, numeric, secondInputs, seriesProblem, startingChoice, varies, type ChartChoice, type SeriesLayout } from '../../../shared/chart/defaults.js';
+import { chartQueryFor, defaultChoice, numeric, secondInputs, seriesProblem, startingChoice, varies, type ChartChoice, type SeriesLayout } from '../lib/chart-defaults.js';
 import { exportChart, exportTitle } from '../lib/chart-export.js';
 import { autoLog, buildChartOption, EVERY_METHOD, hiddenOnLogAxes, type ChartLook } from '../lib/chart-option.js';
 import { formatCount, formatNumber } from '../lib/format.js';

@@ -13,7 +13,7 @@
 import type { EChartsCoreOption } from 'echarts/core';
 import type { TargetFacts, UnreachedPoint } from '../../../shared/chart/types.js';
 import type { ChartData, ChartSeries, FlagDetail } from '../api/types.js';
-import type { SeriesLayout } from '../../../shared/chart/defaults.js';
+import type { SeriesLayout } from './chart-defaults.js';
 import { escapeHtml } from './escape-html.js';
 import { flagText } from './flag-text.js';
 import { formatNumber } from './format.js';

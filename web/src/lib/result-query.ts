@@ -1,8 +1,14 @@
 // The results and chart queries of a run as plain data, and their URL query strings
 // (`filter=NAME:min:max` repeatable, empty bounds left open), per the API contract.
 
-import type { ChartQuery, FlaggedFilter, RangeFilter } from '../../../shared/chart/request.js';
-export type { ChartQuery, FlaggedFilter, RangeFilter };
+export interface RangeFilter {
+  name: string;
+  /** Text as typed; empty means open. */
+  min: string;
+  max: string;
+}
+
+export type FlaggedFilter = 'any' | 'yes' | 'no';
 
 export interface ResultQuery {
   page: number;
@@ -56,6 +62,18 @@ export function resultsSearch(q: ResultQuery): string {
   if (q.flagged !== 'any') append(sp, 'flagged', q.flagged);
   for (const f of filterParams(q.filters)) sp.append('filter', f);
   return sp.toString();
+}
+
+export interface ChartQuery {
+  x: string;
+  y: string;
+  /** `method` or the name of a second input. */
+  series: string;
+  methods: string[];
+  flagged?: FlaggedFilter;
+  filters: RangeFilter[];
+  max: number;
+  measurement?: number;
 }
 
 export function chartSearch(q: ChartQuery): string {

@@ -4,8 +4,9 @@
 // else h (never a constant); a second swept input with few values becomes line styles.
 // A target run starts on its answer instead: the solved input (y) against the swept input
 // with the widest range (x).
-import type { ChartQuery, FlaggedFilter, RangeFilter } from './request.js';
-import type { AxisFacts, TargetFacts } from './types.js';
+import type { TargetFacts } from '../../../shared/chart/types.js';
+import type { AxisFacts } from '../api/types.js';
+import type { ChartQuery, FlaggedFilter, RangeFilter } from './result-query.js';
 
 /** A second input drawn as line styles and markers: at most this many values. */
 export const MAX_STYLED_VALUES = 8;
