@@ -3,7 +3,8 @@
 // results page and the default chart (App.tsx), and the page then finds them in the query
 // cache instead of asking again. Tested by holding the run page's chunk back: every request
 // must already have gone out while it is held, and none is asked twice. Opened straight at
-// a run, the same (the router would run the route's loader only once the chunk is in).
+// a run, they go out before the app's own code has loaded (web/src/early.ts), and the app
+// takes their answers.
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -50,16 +51,22 @@ describe.skipIf(!existsSync(CHROMIUM))('run page data prefetched by its route', 
     await context.close();
   });
 
-  it('opened straight at a run (a link, a reload), asks for its data and default chart before the page code has loaded', async () => {
-    const { context, page } = await signedIn(d, 'viewer');
+  it('opened straight at a run (a link, a reload), asks for its data and starting chart before the app\'s code has loaded, and only once', async () => {
+    const { context } = await signedIn(d, 'viewer');
+    // A new tab: the page loads from scratch, as from a link or a reload.
+    const page = await context.newPage();
     const run = d.runs[0];
+    const api: string[] = [];
     let held = true;
     const seenWhileHeld: string[] = [];
     page.on('request', (r) => {
       const url = r.url().slice(d.base.length);
-      if (url.startsWith('/api/') && held) seenWhileHeld.push(url.split('?')[0]);
+      if (!url.startsWith('/api/')) return;
+      api.push(url.split('?')[0]);
+      if (held) seenWhileHeld.push(url.split('?')[0]);
     });
-    await page.route(/\/assets\/RunPage-[^/]+\.js$/, async (route) => {
+    // The app itself (React, the router, the query cache): the early requests (web/src/early.ts) must not need it.
+    await page.route(/\/assets\/boot-[^/]+\.js$/, async (route) => {
       await new Promise((r) => setTimeout(r, 1500));
       held = false;
       await route.continue();
@@ -67,8 +74,10 @@ describe.skipIf(!existsSync(CHROMIUM))('run page data prefetched by its route', 
     await page.goto(`${d.base}/#/runs/${run}`);
     await page.getByRole('table', { name: 'Results' }).locator('tbody tr').first().waitFor();
     await page.locator('[data-testid="chart"][data-drawn] svg').waitFor();
-    for (const wanted of [`/api/runs/${run}`, `/api/runs/${run}/chart/axes`, `/api/runs/${run}/results`, `/api/runs/${run}/chart`]) {
-      expect(seenWhileHeld, `${wanted} asked while the page code was held`).toContain(wanted);
+    expect(held, "the app's code was held and then let through").toBe(false);
+    for (const wanted of ['/api/session', `/api/runs/${run}`, `/api/runs/${run}/chart/axes`, `/api/runs/${run}/results`, `/api/runs/${run}/chart`, '/api/methods']) {
+      expect(seenWhileHeld, `${wanted} asked while the app's code was held`).toContain(wanted);
+      expect(api.filter((u) => u === wanted), `${wanted} asked once`).toHaveLength(1);
     }
     await context.close();
   });

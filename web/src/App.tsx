@@ -7,7 +7,7 @@ import { ApiError } from './api/client.js';
 import { sessionEnded, sessionQuery, signedInHint } from './api/session.js';
 import { catalogueQuery } from './api/methods.js';
 import { chartAxesQuery, chartQuery, resultsQuery, runQuery } from './api/runs.js';
-import { chartQueryFor, defaultChoice, startingChoice } from './lib/chart-defaults.js';
+import { defaultChartQuery } from './lib/chart-defaults.js';
 import { defaultResultQuery } from './lib/result-query.js';
 import { routeId } from './lib/route-id.js';
 import { Layout } from './components/Layout.js';
@@ -58,10 +58,8 @@ function prefetchRun({ params }: { params: { id?: string } }) {
   void queryClient.prefetchQuery(resultsQuery(id, defaultResultQuery));
   // The default chart, as RunChart asks for it, once the run (its regime) and the chart's axes are in.
   void Promise.all([queryClient.fetchQuery(runQuery(id)), queryClient.fetchQuery(chartAxesQuery(id))])
-    .then(([{ run, regime }, axes]) => {
-      const facts = axes.names;
-      const choice = startingChoice(facts, defaultChoice(facts, regime ?? undefined, axes.target, run.methods.length), {});
-      const query = chartQueryFor(facts, choice, { ...defaultResultQuery, drawnMethods: run.methods.length });
+    .then(([run, axes]) => {
+      const query = defaultChartQuery(run, axes);
       if (query) void queryClient.prefetchQuery(chartQuery(id, query));
     })
     .catch(() => undefined); // the page asks again and shows the error

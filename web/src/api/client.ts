@@ -1,5 +1,6 @@
 // One fetch wrapper for the whole dashboard: JSON in and out, the API's error shape
 // turned into ApiError, and the session's CSRF token on every state-changing request.
+import { readAnswer, takeEarly } from './early.js';
 
 /** The API's error body: `{"error": {"message", "details"?}}` with the HTTP status. */
 export class ApiError extends Error {
@@ -39,19 +40,22 @@ export async function api<T>(url: string, options: RequestOptions = {}): Promise
     body = JSON.stringify(options.body);
   }
   if (UNSAFE.has(method) && csrfToken) headers['X-CSRF-Token'] = csrfToken;
-  const res = await fetch(url, { method, headers, body, credentials: 'same-origin', signal: options.signal });
+  // A GET the page asked for before the app loaded (early.ts) is answered from there.
+  const early = method === 'GET' && body === undefined ? takeEarly(url) : undefined;
+  const res = await (early ?? fetch(url, { method, headers, body, credentials: 'same-origin', signal: options.signal }).then(readAnswer));
   if (res.status === 204) return undefined as T;
-  const text = await res.text();
+  const { text } = res;
+  const ok = res.status >= 200 && res.status < 300;
   let data: unknown = undefined;
   if (text) {
     try {
       data = JSON.parse(text);
     } catch {
-      if (!res.ok) throw new ApiError(res.status, `${res.status} ${res.statusText}`);
+      if (!ok) throw new ApiError(res.status, `${res.status} ${res.statusText}`);
       throw new ApiError(res.status, 'the server sent something that is not JSON');
     }
   }
-  if (!res.ok) {
+  if (!ok) {
     const err = (data as { error?: { message?: string; details?: unknown } } | undefined)?.error;
     throw new ApiError(res.status, err?.message ?? `${res.status} ${res.statusText}`, err?.details);
   }

@@ -1,6 +1,7 @@
 // The catalogue: GET /api/methods.
 import { useQuery } from '@tanstack/react-query';
 import { api } from './client.js';
+import { CATALOGUE_URL } from './run-urls.js';
 import type { MethodInfo } from './types.js';
 
 export interface ConfigurationInfo {
@@ -24,7 +25,7 @@ export interface Catalogue {
   methods: MethodInfo[];
 }
 
-export const catalogueQuery = { queryKey: ['methods'], queryFn: () => api<Catalogue>('/api/methods'), staleTime: Infinity };
+export const catalogueQuery = { queryKey: ['methods'], queryFn: () => api<Catalogue>(CATALOGUE_URL), staleTime: Infinity };
 
 export function useCatalogue() {
   return useQuery(catalogueQuery);

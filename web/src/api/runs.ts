@@ -3,7 +3,8 @@ import { keepPreviousData, useMutation, useQuery, useQueryClient } from '@tansta
 import { api, qs } from './client.js';
 import type { ChartAxes, ChartData, MethodSummary, ResultsPage, RunColumns, RunInfo, RunStatus } from './types.js';
 export type { ChartData, ChartSeries, ResultRowDto, ResultsPage } from './types.js';
-import { chartSearch, resultsSearch, type ChartQuery, type ResultQuery } from '../lib/result-query.js';
+import type { ChartQuery, ResultQuery } from '../lib/result-query.js';
+import { chartAxesUrl, chartUrl, resultsUrl, runUrl } from './run-urls.js';
 
 export interface RunResponse {
   run: RunInfo;
@@ -44,7 +45,7 @@ export function useRuns(filter: { study?: number; status?: RunStatus } = {}) {
 const PREFETCHED_FRESH_MS = 5_000;
 
 /** One run with its summary per method (also prefetched by the run page's route, App.tsx). */
-export const runQuery = (id: number) => ({ queryKey: ['run', id], queryFn: () => api<RunResponse>(`/api/runs/${id}`), staleTime: PREFETCHED_FRESH_MS });
+export const runQuery = (id: number) => ({ queryKey: ['run', id], queryFn: () => api<RunResponse>(runUrl(id)), staleTime: PREFETCHED_FRESH_MS });
 
 export function useRun(id: number) {
   return useQuery({
@@ -56,7 +57,7 @@ export function useRun(id: number) {
 /** One page of a run's results. */
 export const resultsQuery = (id: number, query: ResultQuery) => ({
   queryKey: ['results', id, query],
-  queryFn: () => api<ResultsPage>(`/api/runs/${id}/results?${resultsSearch(query)}`),
+  queryFn: () => api<ResultsPage>(resultsUrl(id, query)),
   staleTime: PREFETCHED_FRESH_MS,
 });
 
@@ -71,7 +72,7 @@ export function useResults(id: number, query: ResultQuery, live: boolean) {
 /** One chart of a run (the route prefetches the default one). */
 export const chartQuery = (id: number, query: ChartQuery | null) => ({
   queryKey: ['chart', id, query],
-  queryFn: () => api<ChartData>(`/api/runs/${id}/chart?${chartSearch(query!)}`),
+  queryFn: () => api<ChartData>(chartUrl(id, query!)),
   staleTime: PREFETCHED_FRESH_MS,
 });
 
@@ -85,7 +86,7 @@ export function useChart(id: number, query: ChartQuery | null, live: boolean) {
 }
 
 /** Facts about every input and output, for the chart's choices; refreshed while the run runs. */
-export const chartAxesQuery = (id: number) => ({ queryKey: ['chart-axes', id], queryFn: () => api<ChartAxes>(`/api/runs/${id}/chart/axes`), staleTime: PREFETCHED_FRESH_MS });
+export const chartAxesQuery = (id: number) => ({ queryKey: ['chart-axes', id], queryFn: () => api<ChartAxes>(chartAxesUrl(id)), staleTime: PREFETCHED_FRESH_MS });
 
 export function useChartAxes(id: number, live: boolean) {
   return useQuery({

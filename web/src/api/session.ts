@@ -1,6 +1,7 @@
 // The signed-in user and the CSRF token: GET/POST/DELETE /api/session, password reset, invites.
 import { useMutation, useQuery, useQueryClient, type QueryClient } from '@tanstack/react-query';
 import { api, ApiError, setCsrfToken } from './client.js';
+import { SESSION_URL } from './run-urls.js';
 import type { User } from './types.js';
 
 export interface SessionResponse {
@@ -10,34 +11,8 @@ export interface SessionResponse {
 
 export const sessionKey = ['session'] as const;
 
-// Whether this browser holds a session, remembered beside the (HttpOnly, unreadable)
-// cookie: a browser that never signed in, or signed out, does not ask the server, so the
-// sign-in page loads without a 401 in the console. A session that expired while the hint
-// says "signed in" costs one 401, after which the hint is gone. A cookie without the hint
-// (a browser that signed in before the hint existed) leads to the sign-in page once.
-const HINT = 'filmsweep.signed-in';
-
-/** Whether this browser says it holds a session (pages may ask for their data before the session answers). */
-export function signedInHint(): boolean {
-  return hinted();
-}
-
-function hinted(): boolean {
-  try {
-    return localStorage.getItem(HINT) === '1';
-  } catch {
-    return true; // storage blocked: ask the server
-  }
-}
-
-function remember(signedIn: boolean) {
-  try {
-    if (signedIn) localStorage.setItem(HINT, '1');
-    else localStorage.removeItem(HINT);
-  } catch {
-    // storage blocked: the probe runs every time instead
-  }
-}
+import { remember, signedInHint as hinted } from './session-hint.js';
+export { signedInHint } from './session-hint.js';
 
 /** The session ended (signed out here, or a 401 elsewhere): forget it. */
 export function sessionEnded(client: QueryClient) {
@@ -52,7 +27,7 @@ export const sessionQuery = {
   queryFn: async (): Promise<SessionResponse | null> => {
     if (!hinted()) return null;
     try {
-      const s = await api<SessionResponse>('/api/session');
+      const s = await api<SessionResponse>(SESSION_URL);
       setCsrfToken(s.csrfToken);
       return s;
     } catch (e) {

@@ -131,3 +131,14 @@ export function startingChoice(facts: readonly AxisFacts[], defaults: ChartChoic
   if (choice.by !== 'method' && (choice.by === choice.x || !facts.some((f) => f.name === choice.by))) choice.by = 'method';
   return choice;
 }
+
+/**
+ * The chart a run page starts on, from the run (its regime and methods) and its axis facts:
+ * what RunChart asks for before any choice, for the route's prefetch and the early requests.
+ */
+export function defaultChartQuery(run: { run: { methods: readonly unknown[] }; regime?: string | null }, axes: { names: AxisFacts[]; target?: TargetFacts }): ChartQuery | null {
+  const facts = axes.names;
+  const methods = run.run.methods.length;
+  const choice = startingChoice(facts, defaultChoice(facts, run.regime ?? undefined, axes.target, methods), {});
+  return chartQueryFor(facts, choice, { methods: [], flagged: 'any', filters: [], drawnMethods: methods });
+}

@@ -1,0 +1,10 @@
+// The app itself, loaded by main.tsx once the page's early requests are out (early.ts).
+import { StrictMode } from 'react';
+import { createRoot } from 'react-dom/client';
+import { App } from './App.js';
+
+createRoot(document.getElementById('root')!).render(
+  <StrictMode>
+    <App />
+  </StrictMode>,
+);
