@@ -67,12 +67,6 @@ function prefetchRun({ params }: { params: { id?: string } }) {
   return null;
 }
 
-// Opened straight at a run (a link, a reload): its data is asked for now, beside the
-// session, not after the page's code has loaded (the router runs a lazy route's loader
-// only then).
-const opened = /^#\/runs\/([^/?]+)$/.exec(window.location.hash);
-if (opened) prefetchRun({ params: { id: opened[1] } });
-
 const router = createHashRouter([
   { path: '/sign-in', element: <SignInPage /> },
   { path: '/invite/:token', lazy: page(() => import('./routes/InvitePage.js'), 'InvitePage') },
