@@ -38,10 +38,28 @@ export async function legacyRunRows(store: Store, runId: number, recommended?: M
     .orderBy('r.point_idx')
     .orderBy('r.method_idx')
     .execute();
-  const rows: ExportRow[] = [];
+  return decodeLegacyRows(raw, recommended);
+}
+
+/** A legacy results row as read: its point, method, and its inputs, outputs and flags as JSON text. */
+export interface LegacyRawRow {
+  point_idx: number;
+  method: string;
+  inputs: string;
+  outputs: string;
+  flags: string;
+}
+
+/**
+ * Legacy rows (point order, then method order) as export rows; with `recommended` (point →
+ * method), each says whether it is its point's recommended one.
+ */
+export function decodeLegacyRows(raw: readonly LegacyRawRow[], recommended?: Map<number, string | null>): ExportRow[] {
+  const rows: ExportRow[] = new Array(raw.length);
   let lastPoint = -1;
   let inputs: Inputs = {};
-  for (const r of raw) {
+  for (let i = 0; i < raw.length; i++) {
+    const r = raw[i];
     // The methods of one point share its inputs object, as the engine returns them.
     if (r.point_idx !== lastPoint) {
       inputs = JSON.parse(r.inputs) as Inputs;
@@ -50,7 +68,7 @@ export async function legacyRunRows(store: Store, runId: number, recommended?: M
     const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
     const best = recommended?.get(r.point_idx);
     if (best !== undefined) row.recommended = best === r.method;
-    rows.push(row);
+    rows[i] = row;
   }
   return rows;
 }

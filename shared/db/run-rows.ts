@@ -7,8 +7,8 @@
 // synchronously; without a yield one export would hold every other request).
 import type { RowSource } from '../export/rows.js';
 import type { ExportRow } from '../export/types.js';
-import type { Inputs, Outputs } from '../physics/types.js';
 import { jsonTextSql } from './dialect.js';
+import { decodeLegacyRows } from './legacy-results.js';
 import { getRecommendedByPoint } from './point-summaries.js';
 import { getRun } from './queries.js';
 import { hasRunTable, storedResultChunks } from './result-table.js';
@@ -53,22 +53,7 @@ export function runRowSource(store: Store, runId: number, options: { recommended
         }
         const raw = await q.orderBy('r.point_idx').orderBy('r.method_idx').limit(chunk).execute();
         if (raw.length === 0) return;
-        const rows: ExportRow[] = new Array(raw.length);
-        let lastPoint = -1;
-        let inputs: Inputs = {};
-        for (let i = 0; i < raw.length; i++) {
-          const r = raw[i];
-          // The methods of one point share its inputs object, as the engine returns them.
-          if (r.point_idx !== lastPoint) {
-            inputs = JSON.parse(r.inputs) as Inputs;
-            lastPoint = r.point_idx;
-          }
-          const row: ExportRow = { method: r.method, inputs, outputs: JSON.parse(r.outputs) as Outputs, flags: JSON.parse(r.flags) as string[] };
-          const best = recommended?.get(r.point_idx);
-          if (best !== undefined) row.recommended = best === r.method;
-          rows[i] = row;
-        }
-        yield rows;
+        yield decodeLegacyRows(raw, recommended);
         if (raw.length < chunk) return;
         const last = raw[raw.length - 1];
         after = [last.point_idx, last.method_idx];
