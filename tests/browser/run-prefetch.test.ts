@@ -7,10 +7,33 @@
 // takes their answers.
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { CHROMIUM, repo, signedIn, startDashboard, type Dashboard } from './harness.js';
 
 const probe = readFileSync(path.join(repo, 'studies', 'probe-in-duct.yaml'), 'utf8');
+
+/**
+ * Records the API paths a page asks for (without their query strings), all of them and those
+ * asked while the script chunk matching `chunk` is held back (1.5 s: long enough for the API
+ * answers, short enough for the test).
+ */
+async function holdChunk(page: Page, base: string, chunk: RegExp) {
+  const seen = { api: [] as string[], whileHeld: [] as string[], held: true };
+  page.on('request', (r) => {
+    const url = r.url().slice(base.length);
+    if (!url.startsWith('/api/')) return;
+    const path = url.split('?')[0];
+    seen.api.push(path);
+    if (seen.held) seen.whileHeld.push(path);
+  });
+  await page.route(chunk, async (route) => {
+    await new Promise((r) => setTimeout(r, 1500));
+    seen.held = false;
+    await route.continue();
+  });
+  return seen;
+}
 
 describe.skipIf(!existsSync(CHROMIUM))('run page data prefetched by its route', { timeout: 120_000 }, () => {
   let d: Dashboard;
@@ -23,30 +46,15 @@ describe.skipIf(!existsSync(CHROMIUM))('run page data prefetched by its route', 
     const { context, page } = await signedIn(d, 'viewer');
     await page.goto(`${d.base}/#/studies`);
     await page.getByRole('table', { name: 'Studies' }).waitFor();
-    const api: string[] = [];
-    let held = true;
-    const seenWhileHeld: string[] = [];
-    page.on('request', (r) => {
-      const url = r.url().slice(d.base.length);
-      if (!url.startsWith('/api/')) return;
-      api.push(url);
-      if (held) seenWhileHeld.push(url);
-    });
-    await page.route(/\/assets\/RunPage-[^/]+\.js$/, async (route) => {
-      // Long enough for the API answers, short enough for the test.
-      await new Promise((r) => setTimeout(r, 1500));
-      held = false;
-      await route.continue();
-    });
+    const seen = await holdChunk(page, d.base, /\/assets\/RunPage-[^/]+\.js$/);
     const run = d.runs[0];
     await page.goto(`${d.base}/#/runs/${run}`);
     await page.getByRole('table', { name: 'Results' }).locator('tbody tr').first().waitFor();
     await page.getByTestId('chart').locator('svg').waitFor();
 
-    const base = (u: string) => u.split('?')[0];
     for (const wanted of [`/api/runs/${run}`, '/api/methods', `/api/runs/${run}/chart/axes`, `/api/runs/${run}/results`, `/api/runs/${run}/chart`]) {
-      expect(seenWhileHeld.map(base), `${wanted} asked while the page code was held`).toContain(wanted);
-      expect(api.map(base).filter((u) => u === wanted), `${wanted} asked once`).toHaveLength(1);
+      expect(seen.whileHeld, `${wanted} asked while the page code was held`).toContain(wanted);
+      expect(seen.api.filter((u) => u === wanted), `${wanted} asked once`).toHaveLength(1);
     }
     await context.close();
   });
@@ -56,28 +64,15 @@ describe.skipIf(!existsSync(CHROMIUM))('run page data prefetched by its route', 
     // A new tab: the page loads from scratch, as from a link or a reload.
     const page = await context.newPage();
     const run = d.runs[0];
-    const api: string[] = [];
-    let held = true;
-    const seenWhileHeld: string[] = [];
-    page.on('request', (r) => {
-      const url = r.url().slice(d.base.length);
-      if (!url.startsWith('/api/')) return;
-      api.push(url.split('?')[0]);
-      if (held) seenWhileHeld.push(url.split('?')[0]);
-    });
     // The app itself (React, the router, the query cache): the early requests (web/src/early.ts) must not need it.
-    await page.route(/\/assets\/boot-[^/]+\.js$/, async (route) => {
-      await new Promise((r) => setTimeout(r, 1500));
-      held = false;
-      await route.continue();
-    });
+    const seen = await holdChunk(page, d.base, /\/assets\/boot-[^/]+\.js$/);
     await page.goto(`${d.base}/#/runs/${run}`);
     await page.getByRole('table', { name: 'Results' }).locator('tbody tr').first().waitFor();
     await page.locator('[data-testid="chart"][data-drawn] svg').waitFor();
-    expect(held, "the app's code was held and then let through").toBe(false);
+    expect(seen.held, "the app's code was held and then let through").toBe(false);
     for (const wanted of ['/api/session', `/api/runs/${run}`, `/api/runs/${run}/chart/axes`, `/api/runs/${run}/results`, `/api/runs/${run}/chart`, '/api/methods']) {
-      expect(seenWhileHeld, `${wanted} asked while the app's code was held`).toContain(wanted);
-      expect(api.filter((u) => u === wanted), `${wanted} asked once`).toHaveLength(1);
+      expect(seen.whileHeld, `${wanted} asked while the app's code was held`).toContain(wanted);
+      expect(seen.api.filter((u) => u === wanted), `${wanted} asked once`).toHaveLength(1);
     }
     await context.close();
   });
