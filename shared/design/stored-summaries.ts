@@ -44,8 +44,6 @@ export class SummaryEncoder {
   private counts: number[];
   /** JSON of each spread_of name met so far. */
   private readonly nameJson = new Map<string, string>();
-  /** JSON of an applicable list, by its mask (methods ≤ 30). */
-  private readonly applicableJson = new Map<number, string>();
 
   constructor(
     private readonly methodIds: readonly string[],
@@ -62,23 +60,9 @@ export class SummaryEncoder {
   /** Point `point`'s rows, one per method in methodIds order. */
   addRows(point: number, rows: readonly ResultRow[]): void {
     const f = fillSummaryIndices(rows, this.fractions, this.adjust, this.scratch);
-    let mask = 0;
     let list = '';
-    const small = rows.length <= 30;
-    for (let i = 0; i < rows.length; i++) {
-      if (!f.applicable[i]) continue;
-      if (small) mask |= 1 << i;
-      else list += list ? `,${i}` : `${i}`;
-    }
-    let json: string;
-    if (small) {
-      const cached = this.applicableJson.get(mask);
-      if (cached !== undefined) json = cached;
-      else {
-        for (let i = 0; i < rows.length; i++) if (mask & (1 << i)) list += list ? `,${i}` : `${i}`;
-        this.applicableJson.set(mask, (json = `[${list}]`));
-      }
-    } else json = `[${list}]`;
+    for (let i = 0; i < rows.length; i++) if (f.applicable[i]) list += list ? `,${i}` : `${i}`;
+    const json = `[${list}]`;
     this.push(point, f.best < 0 ? null : f.best, json, f.spread, f.spread_of);
   }
 
