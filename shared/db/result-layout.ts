@@ -87,6 +87,31 @@ export function decodeValue(kind: ColumnKind, value: unknown): unknown {
   }
 }
 
+/** An ordered list of object keys (name and value kind), with the column each maps to. */
+class KeyList {
+  readonly names: string[] = [];
+  readonly kinds: ColumnKind[] = [];
+  readonly columns: number[] = [];
+
+  get length(): number {
+    return this.names.length;
+  }
+
+  is(i: number, name: string, kind: ColumnKind): boolean {
+    return this.names[i] === name && this.kinds[i] === kind;
+  }
+
+  push(name: string, kind: ColumnKind, column = -1): void {
+    this.names.push(name);
+    this.kinds.push(kind);
+    this.columns.push(column);
+  }
+
+  clear(): void {
+    this.names.length = this.kinds.length = this.columns.length = 0;
+  }
+}
+
 /**
  * Builds a ResultBatch point by point: `addPoint`, then `addResult` once per method, in
  * method order. An output that is not a finite number is left out and the result gets
@@ -111,6 +136,13 @@ export class ResultBatchEncoder {
   private inputColumns: number[] = [];
   private readonly inputValues: (string | number | null)[] = [];
   private readonly outputColumns: number[] = [];
+  /**
+   * The keys (name and kind) behind inputColumns, and per method behind its last outputs:
+   * a point or result with the same keys as the last one (nearly all of a sweep) takes
+   * their columns and shape without a lookup.
+   */
+  private readonly inputKeys = new KeyList();
+  private readonly outputKeys: KeyList[];
 
   constructor(
     private readonly methods: number,
@@ -121,6 +153,7 @@ export class ResultBatchEncoder {
     this.shape = new Uint32Array(this.rows);
     this.flags = new Array(this.rows).fill(null);
     this.lastShape = new Array(methods).fill(undefined);
+    this.outputKeys = Array.from({ length: methods }, () => new KeyList());
   }
 
   private column(role: ColumnRole, name: string, kind: ColumnKind): number {
@@ -142,21 +175,25 @@ export class ResultBatchEncoder {
     if (this.row !== this.points.length * this.methods) throw new Error('internal: a point needs a result per method before the next point');
     if (this.points.length * this.methods >= this.rows) throw new Error('internal: batch is full');
     this.points.push(index);
-    const previous = this.inputColumns;
+    const keys = this.inputKeys;
     let same = true;
     let n = 0;
     for (const name in inputs) {
       const value = inputs[name];
       const kind = kindOf(value);
-      const c = this.column('input', name, kind);
-      if (previous[n] !== c) same = false;
+      if (same && !keys.is(n, name, kind)) same = false;
       this.inputValues[n++] = stored(kind, value);
     }
-    this.inputValues.length = n;
-    if (same && n === previous.length) return;
+    // inputValues may keep stale entries past n: addResult reads inputColumns.length of them.
+    if (same && n === keys.length) return;
     const columns: number[] = [];
+    keys.clear();
     n = 0;
-    for (const name in inputs) columns[n++] = this.column('input', name, kindOf(inputs[name]));
+    for (const name in inputs) {
+      const kind = kindOf(inputs[name]);
+      keys.push(name, kind);
+      columns[n++] = this.column('input', name, kind);
+    }
     this.inputColumns = columns;
   }
 
@@ -165,6 +202,9 @@ export class ResultBatchEncoder {
     if (r >= this.points.length * this.methods) throw new Error('internal: more results than methods for this point');
     const { inputColumns, inputValues, values, outputColumns } = this;
     for (let i = 0; i < inputColumns.length; i++) values[inputColumns[i]][r] = inputValues[i] as never;
+    const method = r % this.methods;
+    const keys = this.outputKeys[method];
+    let same = true;
     let rowFlags: string[] | undefined;
     let n = 0;
     for (const name in outputs) {
@@ -174,12 +214,28 @@ export class ResultBatchEncoder {
         continue;
       }
       const kind = kindOf(value);
-      const c = this.column('output', name, kind);
+      let c: number;
+      if (same && keys.is(n, name, kind)) c = keys.columns[n];
+      else {
+        same = false;
+        c = this.column('output', name, kind);
+      }
       outputColumns[n++] = c;
       values[c][r] = stored(kind, value) as never;
     }
-    outputColumns.length = n;
-    this.shape[r] = this.shapeOf(r % this.methods);
+    const last = this.lastShape[method];
+    if (same && n === keys.length && last !== undefined && this.shapes[last].inputs === inputColumns) this.shape[r] = last;
+    else {
+      outputColumns.length = n;
+      keys.clear();
+      n = 0;
+      for (const name in outputs) {
+        const value: unknown = outputs[name];
+        if (typeof value === 'number' && !Number.isFinite(value)) continue;
+        keys.push(name, kindOf(value), outputColumns[n++]);
+      }
+      this.shape[r] = this.shapeOf(method);
+    }
     const all = rowFlags ?? flags;
     this.flags[r] = all.length ? JSON.stringify(all) : null;
   }

@@ -26,24 +26,25 @@ interface SummaryColumns {
 
 /**
  * Builds the stored ranges point by point, straight from a point's rows (the workers' hot
- * path: no facts object per point, the JSON written as it goes) or from facts by id.
- * The text is exactly JSON.stringify of SummaryColumns.
+ * path: no facts object per point; each column kept as plain values and written as JSON
+ * once per range) or from facts by id. The text is exactly JSON.stringify of SummaryColumns.
  */
 export class SummaryEncoder {
   private readonly out: StoredSummaryRange[] = [];
   private readonly scratch: SummaryIndices;
   private readonly index: Map<string, number>;
-  /** The open range: its first and next point, and its columns as JSON pieces. */
+  /** The open range: its first and next point, and its columns (applicable as JSON pieces). */
   private first = -1;
   private next = -1;
-  private recommended: string[] = [];
+  private recommended: (number | null)[] = [];
   private applicable: string[] = [];
-  private spread: string[] = [];
-  private spreadOf: string[] = [];
+  private spread: (number | null)[] = [];
+  private spreadOf: (string | null)[] = [];
   /** Points per recommended method index in the open range; the last entry counts "none". */
   private counts: number[];
-  /** JSON of each spread_of name met so far. */
-  private readonly nameJson = new Map<string, string>();
+  /** The last point's applicable flags and their JSON (neighbouring points nearly always share them). */
+  private readonly lastApplicable: Uint8Array;
+  private lastApplicableJson = '';
 
   constructor(
     private readonly methodIds: readonly string[],
@@ -55,15 +56,13 @@ export class SummaryEncoder {
     this.scratch = summaryScratch(methodIds.length);
     this.counts = new Array<number>(methodIds.length + 1).fill(0);
     this.index = new Map(methodIds.map((id, i) => [id, i]));
+    this.lastApplicable = new Uint8Array(methodIds.length);
   }
 
   /** Point `point`'s rows, one per method in methodIds order. */
   addRows(point: number, rows: readonly ResultRow[]): void {
     const f = fillSummaryIndices(rows, this.fractions, this.adjust, this.scratch);
-    let list = '';
-    for (let i = 0; i < rows.length; i++) if (f.applicable[i]) list += list ? `,${i}` : `${i}`;
-    const json = `[${list}]`;
-    this.push(point, f.best < 0 ? null : f.best, json, f.spread, f.spread_of);
+    this.push(point, f.best < 0 ? null : f.best, this.applicableJson(f.applicable, rows.length), f.spread, f.spread_of);
   }
 
   /** Point `point`'s facts by method id (methods not in the run's list are left out). */
@@ -73,22 +72,36 @@ export class SummaryEncoder {
     this.push(point, rec, JSON.stringify(applicable), s.spread, s.spread_of);
   }
 
+  /** The JSON list of the method indices whose flag is set. */
+  private applicableJson(flags: ArrayLike<number>, n: number): string {
+    const last = this.lastApplicable;
+    let same = this.lastApplicableJson !== '';
+    for (let i = 0; i < n && same; i++) same = last[i] === flags[i];
+    if (same) return this.lastApplicableJson;
+    let list = '';
+    for (let i = 0; i < n; i++) {
+      last[i] = flags[i];
+      if (flags[i]) list += list ? `,${i}` : `${i}`;
+    }
+    return (this.lastApplicableJson = `[${list}]`);
+  }
+
   private push(point: number, rec: number | null, applicable: string, spread: number | null, spreadOf: string | null): void {
     if (point !== this.next) this.close();
     if (this.first < 0) this.first = point;
     this.next = point + 1;
-    this.recommended.push(rec === null ? 'null' : String(rec));
+    this.recommended.push(rec);
     this.applicable.push(applicable);
-    this.spread.push(JSON.stringify(spread));
-    let name = spreadOf === null ? 'null' : this.nameJson.get(spreadOf);
-    if (name === undefined) this.nameJson.set(spreadOf!, (name = JSON.stringify(spreadOf)));
-    this.spreadOf.push(name);
+    this.spread.push(spread);
+    this.spreadOf.push(spreadOf);
     this.counts[rec === null ? this.methodIds.length : rec]++;
   }
 
   private close(): void {
     if (this.first < 0) return;
-    const facts = `{"recommended":[${this.recommended.join(',')}],"applicable":[${this.applicable.join(',')}],"spread":[${this.spread.join(',')}],"spread_of":[${this.spreadOf.join(',')}]}`;
+    const facts =
+      `{"recommended":${JSON.stringify(this.recommended)},"applicable":[${this.applicable.join(',')}],` +
+      `"spread":${JSON.stringify(this.spread)},"spread_of":${JSON.stringify(this.spreadOf)}}`;
     // Keys as JSON.stringify of a record gives them: method indices ascending, then "none".
     const counts: Record<string, number> = {};
     const none = this.methodIds.length;

@@ -58,15 +58,26 @@ export function compileSolver(plan: SolvePlan, options: SolveOptions = {}): (inp
   const methods = planMethods(plan);
   const fluid = plan.fluid === undefined ? undefined : resolveFluid(plan.fluid);
   const strict = options.strict ?? false;
+  // What depends only on a point's input names is worked out again only when the names
+  // change (a sweep's points all have the same): whether the point is dimensional, and
+  // per method whether it declares every name, so a dimensionless point goes to it as it is.
+  let names: string[] | undefined;
+  let dimensional = false;
+  let asGiven: boolean[] = [];
   return (inputs) => {
     if (methods.length === 0) return [];
-    // Whether the point is dimensional is the same for every method: decided once.
-    const dimensional = isDimensionalPoint(inputs, fluid);
+    if (names === undefined || !sameKeys(inputs, names)) {
+      names = undefined;
+      dimensional = isDimensionalPoint(inputs, fluid);
+      const given = Object.keys(inputs);
+      asGiven = methods.map((m) => declaresAll(m, given));
+      names = given;
+    }
     const rows = new Array<ResultRow>(methods.length);
     for (let i = 0; i < methods.length; i++) {
       const m = methods[i];
       try {
-        rows[i] = dimensional ? solveDimensional(m, configuration, fluid!, inputs) : finish(evaluateDimensionless(m, inputs));
+        rows[i] = dimensional ? solveDimensional(m, configuration, fluid!, inputs) : finish(evaluateDimensionless(m, inputs, asGiven[i]));
       } catch (e) {
         if (strict) throw e;
         const flagged = (flag: string): ResultRow => ({ method: m.id, inputs, outputs: {}, flags: [flag] });
@@ -78,6 +89,18 @@ export function compileSolver(plan: SolvePlan, options: SolveOptions = {}): (inp
     }
     return rows;
   };
+}
+
+/** Whether `inputs` has exactly the keys `names`, in that order. */
+function sameKeys(inputs: Inputs, names: readonly string[]): boolean {
+  let n = 0;
+  for (const k in inputs) if (names[n++] !== k) return false;
+  return n === names.length;
+}
+
+/** Whether the method declares every one of `names` (then the point itself is what it would be given). */
+function declaresAll(method: Method, names: readonly string[]): boolean {
+  return names.every((n) => n !== 'profiles' && method.inputs.some((s) => s.name === n));
 }
 
 /** One point without a study: what `filmsweep solve` does. */
@@ -156,9 +179,13 @@ function withExtension(ctx: PointContext, row: ResultRow): ResultRow {
 // JSON has no NaN or Infinity: a non-finite output is left out and flagged `non-finite:<output>`,
 // in `solve`, sweeps and exports alike (never a silent NaN or null).
 function finish(row: ResultRow): ResultRow {
-  for (const name of Object.keys(row.outputs)) {
-    if (Number.isFinite(row.outputs[name])) continue;
-    delete row.outputs[name];
+  const { outputs } = row;
+  let bad: string[] | undefined;
+  // A scan without a key list first: nearly every row is finite and keeps its outputs as they are.
+  for (const name in outputs) if (!Number.isFinite(outputs[name])) (bad ??= []).push(name);
+  if (bad === undefined) return row;
+  for (const name of bad) {
+    delete outputs[name];
     row.flags.push(`non-finite:${name}`);
   }
   return row;

@@ -170,9 +170,13 @@ function evaluate(method: Method, inputs: Inputs): MethodResult {
   }
 }
 
-/** A dimensionless point: the method on the inputs it declares (one point feeds several methods). */
-export function evaluateDimensionless(method: Method, inputs: Inputs): ResultRow {
-  const r = evaluate(method, declaredInputs(method, inputs, NOTHING_DERIVED));
+/**
+ * A dimensionless point: the method on the inputs it declares (one point feeds several
+ * methods). `declaresAll`: the point has no input the method does not declare (nor
+ * `profiles`), so it goes as it is instead of as a copy with the same entries.
+ */
+export function evaluateDimensionless(method: Method, inputs: Inputs, declaresAll = false): ResultRow {
+  const r = evaluate(method, declaresAll ? inputs : declaredInputs(method, inputs, NOTHING_DERIVED));
   const row: ResultRow = { method: method.id, inputs, outputs: r.outputs, flags: r.flags };
   if (r.profiles) row.profiles = r.profiles;
   return row;

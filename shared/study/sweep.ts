@@ -171,7 +171,7 @@ export function* iteratePoints(study: SweepSource, start = 0): Generator<Inputs>
     }
     return;
   }
-  const values = names.map((name) => entryValues(over[name]));
+  const values = names.map((name) => cachedEntryValues(over[name]));
   const digits = new Array<number>(names.length);
   for (let i = start; i < n; i++) {
     if (design === 'zip') digits.fill(i);
@@ -184,9 +184,20 @@ export function* iteratePoints(study: SweepSource, start = 0): Generator<Inputs>
       }
     }
     const point: Inputs = { ...study.inputs };
-    names.forEach((name, j) => (point[name] = values[j][digits[j]]));
+    for (let j = 0; j < names.length; j++) point[names[j]] = values[j][digits[j]];
     yield point;
   }
+}
+
+/**
+ * An entry's values, listed once per entry object: a worker walks the same sweep once per
+ * batch, and a log range's values cost a power each.
+ */
+const entryValueLists = new WeakMap<SweepEntry, InputValue[]>();
+function cachedEntryValues(entry: SweepEntry): InputValue[] {
+  let values = entryValueLists.get(entry);
+  if (!values) entryValueLists.set(entry, (values = entryValues(entry)));
+  return values;
 }
 
 /** Every point in id order. */
