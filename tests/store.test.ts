@@ -228,6 +228,37 @@ describe.each(STORE_KINDS)('the store on %s', (kind) => {
       expect(JSON.stringify(rows.map((r) => r.outputs))).toBe(`[${batch([0, 1, 2, 3]).outputs.join(',')}]`);
     });
 
+    it('stores large batches exactly, written in order, out of order and after a gap, with a few flagged or differently shaped rows among the rest', async () => {
+      // 600 points × 2 methods per batch: several multi-row statements each. Most rows share
+      // one shape and have no flags (the writer's uniform statements, and on SQLite the
+      // batches that continue the highest seq leave the numbering to SQLite); every 131st
+      // point's alpha row is flagged and every 97th point's beta row has one output more.
+      const wide = (from: number, to: number): EncodedBatch => {
+        const points = Array.from({ length: to - from }, (_, k) => from + k);
+        return {
+          points,
+          inputs: points.map((i) => JSON.stringify({ Re: 1e4 + 37.5 * i, Pr: 0.7 + i / 7 })),
+          outputs: points.flatMap((i) => [
+            JSON.stringify({ Nu: 20 + Math.sqrt(i), f: 0.02 + 1 / (i + 3) }),
+            JSON.stringify(i % 97 === 5 ? { Nu: 21 + Math.cbrt(i), f: 0.03, Gz: i / 3 } : { Nu: 21 + Math.cbrt(i), f: 0.03 }),
+          ]),
+          flags: points.flatMap((i) => [i % 131 === 7 ? JSON.stringify(['out-of-range:Pr']) : '[]', '[]']),
+        };
+      };
+      const id = await createRun(store, spec({ pointsTotal: 3000 }));
+      const writer = createBatchWriter(store, id, ['alpha', 'beta']);
+      for (const [from, to] of [[0, 600], [600, 1200], [1800, 2400], [1200, 1800], [2400, 3000]]) await writer.write(wide(from, to));
+      const { run, rows } = await getRunRows(store, id);
+      const all = wide(0, 3000);
+      expect(run.points_done).toBe(3000);
+      expect(run.results_count).toBe(6000);
+      expect(run.flagged_count).toBe(all.flags.filter((f) => f !== '[]').length);
+      expect(rows.map((r) => r.method)).toEqual(all.points.flatMap(() => ['alpha', 'beta']));
+      expect(JSON.stringify(rows.map((r) => r.inputs))).toBe(`[${all.inputs.flatMap((i) => [i, i]).join(',')}]`);
+      expect(JSON.stringify(rows.map((r) => r.outputs))).toBe(`[${all.outputs.join(',')}]`);
+      expect(JSON.stringify(rows.map((r) => r.flags))).toBe(`[${all.flags.join(',')}]`);
+    });
+
     it('refuses a batch whose results do not cover every method of every point', async () => {
       const id = await createRun(store, spec());
       const short = { ...batch([0, 1]), flags: ['[]', '[]', '[]'] };
