@@ -17,7 +17,7 @@
 // beyond 1e6 results. JSONB keeps each number's decimal text, so json() gives back exactly
 // what JSON.stringify wrote (checked on 2e5 random doubles). On PostgreSQL the same
 // columns are `json`, which keeps the text as written (shared/db/dialect.ts).
-import { sql, type Kysely } from 'kysely';
+import { sql, type Kysely } from '#kysely';
 import { ddl } from './ddl.js';
 
 export async function up(db: Kysely<any>): Promise<void> {

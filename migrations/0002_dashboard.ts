@@ -19,7 +19,7 @@
 //
 // users are disabled, never deleted, so runs.started_by needs no foreign key (SQLite's
 // DROP COLUMN, used by down(), refuses a column that has one).
-import { sql, type Kysely } from 'kysely';
+import { sql, type Kysely } from '#kysely';
 import { ddl } from './ddl.js';
 
 export async function up(db: Kysely<any>): Promise<void> {

@@ -8,7 +8,7 @@
 //   computed in this database. A pushed run's points are renumbered 0…n−1, so it must never
 //   be resumed here, and a push the server did not finish (killed half-way) is removed at
 //   start-up rather than marked interrupted.
-import { sql, type Kysely } from 'kysely';
+import { sql, type Kysely } from '#kysely';
 
 export async function up(db: Kysely<any>): Promise<void> {
   await db.schema.alterTable('sessions').addColumn('ip', 'text').execute();

@@ -7,7 +7,7 @@
 // between the two writes) is ignored by the counts, which take a range once its last
 // point is stored, and a resumed batch's range that starts at the same point is not
 // written twice (on conflict do nothing; its content is the same, computed again).
-import type { Kysely } from 'kysely';
+import type { Kysely } from '#kysely';
 import { ddl } from './ddl.js';
 
 export async function up(db: Kysely<any>): Promise<void> {

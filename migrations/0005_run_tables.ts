@@ -25,7 +25,7 @@
 //
 // down() cannot put the new runs back into points/results without the code of shared/db
 // (which migrations do not import): it drops their tables and deletes those runs.
-import { sql, type Kysely } from 'kysely';
+import { sql, type Kysely } from '#kysely';
 
 export async function up(db: Kysely<any>): Promise<void> {
   // 1: the run's results are in run_results_<id>; 0: in points/results (stored before 0005).

@@ -1,7 +1,7 @@
 // DDL pieces by dialect, for the migrations (and for shared/db, which imports migrations/
 // anyway to apply them). This module imports only Kysely, so migrations/ never imports
 // shared/db/ and the two do not import each other in a circle.
-import { PostgresAdapter, sql, type ColumnDefinitionBuilder, type CreateTableBuilder, type Kysely } from 'kysely';
+import { PostgresAdapter, sql, type ColumnDefinitionBuilder, type CreateTableBuilder, type Kysely } from '#kysely';
 
 export function isPostgres(db: Kysely<any>): boolean {
   return db.getExecutor().adapter instanceof PostgresAdapter;

@@ -1,7 +1,7 @@
 // Every migration, listed explicitly: works the same from the TypeScript sources (tests)
 // and from dist/ (the installed command), with no directory scan or dynamic import.
 // Names sort in the order they apply; add new files as 0002_…, 0003_… below.
-import type { Migration } from 'kysely';
+import type { Migration } from '#kysely';
 import * as m0001 from './0001_initial.js';
 import * as m0002 from './0002_dashboard.js';
 import * as m0003 from './0003_security.js';

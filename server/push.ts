@@ -11,7 +11,7 @@
 // study's input names and at most MAX_RUN_OUTPUT_NAMES output names over the run, each a
 // plain name as the engine writes them. Without these limits a run with thousands of
 // output names made every page of it fail (the results cache of that time had one column per name; run tables have too).
-import { z } from 'zod';
+import { z } from '#zod';
 import { createBatchWriter, createRun, deleteRun, type Store } from '../shared/db/index.js';
 import { NAME_PATTERN } from '../shared/db/results-query.js';
 import { getDashboardRun, type DashboardRun } from '../shared/db/studies.js';

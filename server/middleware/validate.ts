@@ -1,6 +1,6 @@
 // zod at the door of every route: params, query and body are parsed before use; a
 // failure is a 400 whose details are the zod issues.
-import type { z } from 'zod';
+import type { z } from '#zod';
 import { HttpError } from '../http-error.js';
 
 export function parse<S extends z.ZodType>(schema: S, value: unknown, where: 'body' | 'query' | 'params' | 'field'): z.infer<S> {

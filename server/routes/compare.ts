@@ -3,7 +3,7 @@
 // results (413 beyond), pairing choices that identify points (422 otherwise), pages of at
 // most MAX_PAGE_SIZE rows, and a short queue of long reads (503 when it is full).
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { compareRuns, CompareLimitError, MAX_TOLERANCE, studyYamlOf } from '../../shared/db/compare-query.js';
 import { getRun } from '../../shared/db/index.js';
 import { ReadThreadBusyError } from '../../shared/db/read-thread.js';

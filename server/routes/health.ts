@@ -1,7 +1,7 @@
 // `GET /api/health` (public): answers at once while the process serves requests, for a
 // reverse proxy's or a monitor's health check. Says nothing about the data or the users.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { parse } from '../middleware/validate.js';
 
 export function healthRouter(): Router {

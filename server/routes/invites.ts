@@ -3,7 +3,7 @@
 // first); a lead revokes an open invite with DELETE /api/invites/:id, after which its link
 // is refused. Failed acceptances are audited.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { OpenInviteExistsError, createInvite, findOpenInvite, getInvite, listInvites, markInviteAccepted, revokeInvite } from '../../shared/db/invites.js';
 import { ROLES } from '../../shared/db/schema.js';

@@ -3,7 +3,7 @@
 // carries its unit in the header (`fluid_temperature [degC]`), converted to SI by mathjs
 // as study files are (shared/study/units.ts); without one it is refused, never guessed.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { createMeasurement, getMeasurement, listMeasurements, studyConfigurations, type MeasurementRow } from '../../shared/db/measurements.js';
 import { NAME_PATTERN } from '../../shared/db/results-query.js';

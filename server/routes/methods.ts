@@ -1,6 +1,6 @@
 // The catalogue as data: the `filmsweep methods --json` shape.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { describeMethod, methods } from '../../shared/physics/catalogue.js';
 import { configurations, describeConfiguration } from '../../shared/physics/configurations.js';
 import { parse } from '../middleware/validate.js';

@@ -1,7 +1,7 @@
 // The local mail outbox (lead, and only when the server runs with --dev: it holds live
 // reset and invite links; every read is audited) and the audit log (lead).
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { AUDIT_ACTIONS, listAudit, recordAudit } from '../../shared/db/audit.js';
 import { listMail } from '../../shared/db/outbox.js';
 import type { AppContext } from '../context.js';

@@ -5,7 +5,7 @@
 // of the account, every session and every API token of the user (whoever knew the old
 // password may have made one); the user signs in again and makes new tokens.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { consumePasswordReset, countPasswordResetsSince, createPasswordReset } from '../../shared/db/invites.js';
 import { deleteUserSessions } from '../../shared/db/sessions.js';

@@ -11,7 +11,7 @@
 // The summary is the one stored with the run; a run stored without summaries (pushed
 // from an older Filmsweep) gets it computed from its rows (spread over Nu).
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { storedStudy, targetFacts } from '../../shared/db/chart-query.js';
 import { getPointRows, getPointSummaryFacts } from '../../shared/db/point-summaries.js';
 import { getDashboardRun } from '../../shared/db/studies.js';

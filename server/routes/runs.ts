@@ -2,7 +2,7 @@
 // (streamed from the database: see shared/export/stream.ts), the reference mark, runs
 // pushed from elsewhere (`filmsweep push`, CI), and resuming an interrupted run.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { getRun, getRunDetails, getRunSource, getRunSummary, resumeRefusal, RUN_STATUSES } from '../../shared/db/index.js';
 import { getMeasurement } from '../../shared/db/measurements.js';

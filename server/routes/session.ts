@@ -2,7 +2,7 @@
 // `GET /api/session/all` lists them (when and where each was opened, which one is this),
 // `DELETE /api/session/others` ends every one but the current.
 import { Router, type Request, type Response } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { createSession, deleteOtherSessions, deleteSession, listUserSessions } from '../../shared/db/sessions.js';
 import { verifyCredentials, type User } from '../../shared/db/users.js';

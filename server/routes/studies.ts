@@ -1,7 +1,7 @@
 // Studies: list, one study with its versions and runs, and upload (validated exactly as
 // `filmsweep run` validates a file, then run in the background).
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { getDashboardRun, getStudy, listStudies, findStudyByName } from '../../shared/db/studies.js';
 import { prepareStudy } from '../../shared/runner/index.js';

@@ -1,6 +1,6 @@
 // API tokens for CI and `filmsweep push`: made (shown once), listed, revoked.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { createToken, listTokens, revokeToken } from '../../shared/db/tokens.js';
 import type { AppContext } from '../context.js';

@@ -1,6 +1,6 @@
 // The team (lead only): list accounts, change a role, disable or enable an account.
 import { Router } from 'express';
-import { z } from 'zod';
+import { z } from '#zod';
 import { recordAudit } from '../../shared/db/audit.js';
 import { ROLES } from '../../shared/db/schema.js';
 import { deleteUserSessions } from '../../shared/db/sessions.js';

@@ -10,7 +10,7 @@
 // keeps the text exactly as written (key order and each number's decimal text).
 import type BetterSqlite3 from 'better-sqlite3';
 import type pg from 'pg';
-import { sql, type Kysely, type RawBuilder } from 'kysely';
+import { sql, type Kysely, type RawBuilder } from '#kysely';
 import { ddl, isPostgres } from '../../migrations/ddl.js';
 import { retryBusy } from './busy.js';
 

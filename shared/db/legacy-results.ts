@@ -18,7 +18,7 @@ import { ResultBatchEncoder } from './result-layout.js';
 import { createRunTableSql, runTableName } from './result-table.js';
 import type { MethodVersion } from './runs.js';
 import type { Store } from './store.js';
-import { sql } from 'kysely';
+import { sql } from '#kysely';
 
 /** Points per step of a conversion (about 10–30 ms of work on SQLite for a two-method run). */
 const STEP_POINTS = 2000;

@@ -4,7 +4,7 @@
 // runs inside one BEGIN IMMEDIATE instead, so the second process waits (busy timeout),
 // then finds nothing left to do. PostgreSQL: the Migrator's own transaction and its
 // advisory lock do the same.
-import { Migrator, sql, type Kysely, type MigrationResult } from 'kysely';
+import { Migrator, sql, type Kysely, type MigrationResult } from '#kysely';
 import { migrations } from '../../migrations/index.js';
 import { retryBusy } from './busy.js';
 import { isPostgres } from '../../migrations/ddl.js';

@@ -4,7 +4,7 @@ import { decodeRecommended, decodeSummary } from '../design/stored-summaries.js'
 import type { SummaryFacts } from '../design/summary.js';
 import type { ResultRow } from '../physics/engine.js';
 import type { Inputs, Outputs } from '../physics/types.js';
-import { sql } from 'kysely';
+import { sql } from '#kysely';
 import { jsonTextSql } from './dialect.js';
 import { eachStoredResult, hasRunTable, runTableName } from './result-table.js';
 import type { Store } from './store.js';

@@ -1,7 +1,7 @@
 // A run's life in the database: created as `running` with its results table, advanced by
 // the batch writer, finished as done / failed / interrupted, claimed again by `resume`,
 // and deleted (a push that failed half-way).
-import { sql } from 'kysely';
+import { sql } from '#kysely';
 import { InputError } from '../physics/types.js';
 import { createRunTableSql, layoutOf, methodSql, recountSql, runTableName } from './result-table.js';
 import type { RunStatus } from './schema.js';

@@ -3,7 +3,7 @@
 // run time, so not listed here); runs stored before migrations/0005_run_tables.ts keep
 // theirs in points/results, whose inputs and outputs are JSON columns (JSONB blobs on
 // SQLite, json on PostgreSQL: read them through shared/db/dialect.ts).
-import type { Generated, Insertable, Selectable } from 'kysely';
+import type { Generated, Insertable, Selectable } from '#kysely';
 
 export const RUN_STATUSES = ['queued', 'running', 'done', 'failed', 'interrupted'] as const;
 export type RunStatus = (typeof RUN_STATUSES)[number];

@@ -9,7 +9,7 @@
 import { existsSync, mkdirSync } from 'node:fs';
 import { dirname } from 'node:path';
 import BetterSqlite3 from 'better-sqlite3';
-import { Kysely, PostgresDialect, SqliteDialect } from 'kysely';
+import { Kysely, PostgresDialect, SqliteDialect } from '#kysely';
 import type pg from 'pg';
 import { InputError } from '../physics/types.js';
 import { BUSY_TIMEOUT_MS } from './busy.js';

@@ -3,7 +3,7 @@
 // half-way when another process writes; an advisory lock on PostgreSQL. Two processes
 // doing the same thing at once are simply serialised. On SQLite the store has one
 // connection, so callers must not run other queries on it while this is open.
-import type { Kysely } from 'kysely';
+import type { Kysely } from '#kysely';
 import type { Database } from './schema.js';
 import type { Store } from './store.js';
 

@@ -3,7 +3,7 @@
 // size limit. Every problem found is collected and thrown together as one StudyError,
 // before anything runs.
 import { LineCounter, isAlias, parseDocument, visit, type Document } from 'yaml';
-import type { z } from 'zod';
+import type { z } from '#zod';
 import { getMethod, methodsFor, requireConfiguration } from '../physics/catalogue.js';
 import { dimensionalInputsOf } from '../physics/configurations.js';
 import { conflictMessage, inputConflicts } from '../physics/point-inputs.js';

@@ -2,7 +2,7 @@
 // structure of a file and is also printed as JSON Schema by `filmsweep schema` for
 // editors. It describes the file as written (numbers or strings with units); turning
 // values into SI and checking them against the catalogue happens in parse.ts.
-import { z } from 'zod';
+import { z } from '#zod';
 
 /** Lowercase words joined by hyphens, used in file names, URLs and the database. */
 export const slugPattern = /^[a-z0-9]+(?:-[a-z0-9]+)*$/;

@@ -1,7 +1,7 @@
 // zod issues turned into messages attached to document paths. Unions report the
 // branch the value came closest to matching, so `{from: 1, to: 9, count: 1.5}` says
 // what is wrong with count rather than "no alternative matched".
-import type { z } from 'zod';
+import type { z } from '#zod';
 import type { Path } from './positions.js';
 
 export interface PathMessage {
