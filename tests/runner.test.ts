@@ -10,7 +10,7 @@ import { closeStore, getRun, getRunRows, getRunSummary, openStore, type Store } 
 import { runTableName } from '../shared/db/result-table.js';
 import { compileSolver, type ResultRow } from '../shared/physics/engine.js';
 import { InputError } from '../shared/physics/types.js';
-import { BatchSizer, MAX_BATCH, MIN_BATCH, prepareStudy, resumeRun, runStudy, type PreparedStudy } from '../shared/runner/index.js';
+import { BatchSizer, MAX_BATCH_RESULTS, MIN_BATCH, prepareStudy, resumeRun, runStudy, type PreparedStudy } from '../shared/runner/index.js';
 import { expandPoints, loadStudyFile } from '../shared/study/index.js';
 import { STORE_KINDS, createTestDatabase, type TestDatabase } from './helpers/stores.js';
 
@@ -246,8 +246,14 @@ describe('BatchSizer', () => {
   it('starts small, then sizes batches to the target compute time within its bounds', () => {
     const s = new BatchSizer(1_000_000, 2);
     expect(s.next()).toBe(MIN_BATCH);
-    s.observe(16, 16 * 0.01); // 10 µs per point: 0.2 s is 20,000 points, capped
-    expect(s.next()).toBe(MAX_BATCH);
+    s.observe(16, 16 * 0.01); // 10 µs per point: 0.2 s is 20,000 points
+    expect(s.next()).toBe(20_000);
+    const cheap = new BatchSizer(1_000_000, 2);
+    cheap.observe(16, 16 * 0.0001); // 0.1 µs per point: capped at the batch's results, 32,000 for one method …
+    expect(cheap.next()).toBe(MAX_BATCH_RESULTS);
+    const four = new BatchSizer(1_000_000, 2, undefined, 1, 4);
+    four.observe(16, 16 * 0.0001);
+    expect(four.next()).toBe(MAX_BATCH_RESULTS / 4); // … and 8,000 points for four
     const slow = new BatchSizer(1_000_000, 2);
     slow.observe(16, 16 * 5); // 5 ms per point: 40 points make 0.2 s
     expect(slow.next()).toBe(40);

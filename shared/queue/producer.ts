@@ -10,12 +10,18 @@ import {
   type RunStatus,
   type Store,
 } from '../db/index.js';
-import { MAX_BATCH, MIN_BATCH } from '../runner/batches.js';
+import { MIN_BATCH } from '../runner/batches.js';
 import { gitCommit, hostName } from '../runner/environment.js';
 import { prepareResume, prepareStudy, type PreparedStudy, type RunOptions, type RunOutcome } from '../runner/run-study.js';
 import { entryLength } from '../study/index.js';
 import { BATCH_JOB, batchJobId, planBatches, type BatchJobData } from './jobs.js';
 import { whenReachable, type QueueTarget } from './target.js';
+
+/**
+ * Points per queued job at most: kept at the size local batches had, so a job stays a
+ * short unit of work that a stopped `filmsweep worker` loses little of.
+ */
+const MAX_JOB_POINTS = 2000;
 
 /** Tries of one batch: a failed write (a database restart, say) is retried, a bad study is not. */
 export const JOB_ATTEMPTS = 3;
@@ -76,8 +82,8 @@ export function queueBatchSize(prepared: PreparedStudy, fixed?: number, slots = 
   const entries = Object.values(study.sweep.over);
   const align = study.sweep.design === 'grid' && entries.length >= 2 ? entryLength(entries[entries.length - 1]) : 1;
   if (fixed !== undefined) return fixed;
-  const size = Math.max(MIN_BATCH, Math.min(MAX_BATCH, Math.ceil(prepared.total / (slots * 4))));
-  return align <= 1 || align > MAX_BATCH ? size : Math.max(align, Math.round(size / align) * align);
+  const size = Math.max(MIN_BATCH, Math.min(MAX_JOB_POINTS, Math.ceil(prepared.total / (slots * 4))));
+  return align <= 1 || align > MAX_JOB_POINTS ? size : Math.max(align, Math.round(size / align) * align);
 }
 
 async function withQueue<T>(target: QueueTarget, fn: (queue: Queue) => Promise<T>): Promise<T> {

@@ -11,7 +11,7 @@ export {
   type RunOutcome,
   type RunProgress,
 } from './run-study.js';
-export { BatchSizer, TARGET_BATCH_MS, MIN_BATCH, MAX_BATCH } from './batches.js';
+export { BatchSizer, TARGET_BATCH_MS, MIN_BATCH, MAX_BATCH_RESULTS, maxBatchPoints } from './batches.js';
 export { defaultWorkers, gitCommit, hostName, processAlive } from './environment.js';
 export { workerFile } from './pool.js';
 export { captureInterrupts, type InterruptHandle } from './interrupts.js';

@@ -302,7 +302,7 @@ async function computeAndWrite(
     throw e;
   }
   const { inputs, sweep, design } = prepared.loaded.study;
-  const sizer = new BatchSizer(count, workers, options.batchSize, innermostLength(sweep));
+  const sizer = new BatchSizer(count, workers, options.batchSize, innermostLength(sweep), prepared.methods.length);
   const inFlight = options.inFlight ?? workers * 2;
   const limit = pLimit(inFlight);
   let failure: unknown;
