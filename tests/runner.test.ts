@@ -10,6 +10,7 @@ import { closeStore, getRun, getRunRows, getRunSummary, openStore, type Store } 
 import { runTableName } from '../shared/db/result-table.js';
 import { compileSolver, type ResultRow } from '../shared/physics/engine.js';
 import { InputError } from '../shared/physics/types.js';
+import { createPool } from '../shared/runner/pool.js';
 import { BatchSizer, MAX_BATCH_RESULTS, MIN_BATCH, prepareStudy, resumeRun, runStudy, type PreparedStudy } from '../shared/runner/index.js';
 import { expandPoints, loadStudyFile } from '../shared/study/index.js';
 import { STORE_KINDS, createTestDatabase, type TestDatabase } from './helpers/stores.js';
@@ -83,6 +84,28 @@ describe.each(STORE_KINDS)('on %s', (kind) => {
         expect(run.flagged_count).toBe(expected.filter((r) => r.flags.length > 0).length);
       }
       expect(new Set(outcomes.map((o) => o.flagged)).size).toBe(1);
+    });
+
+    it('computes each study on its own in a pool started beforehand and shared by several runs', async () => {
+      // The threads get each batch's study with the task: a thread that computed the first
+      // study must compile the second (other methods, other sweep) before its points.
+      const first = prepare(PIPE, 'first.yaml');
+      const second = prepare(
+        PIPE.replace('name: runner-pipe', 'name: runner-pipe-two').replace('[gnielinski, dittus-boelter]', '[sieder-tate, gnielinski, dittus-boelter]').replace('count: 30', 'count: 12'),
+        'second.yaml',
+      );
+      const pool = createPool(2);
+      try {
+        for (const p of [first, second, first]) {
+          const o = await runStudy(store, p, { workers: 2, batchSize: 40, pool });
+          expect(o.status).toBe('done');
+          expect((await getRunRows(store, o.id)).rows).toEqual(reference(p));
+        }
+        // The runs leave the caller's pool running.
+        expect(pool.threads.length).toBe(2);
+      } finally {
+        await pool.destroy();
+      }
     });
 
     it('reports progress up to the total and the run in the database as it goes', async () => {

@@ -78,7 +78,7 @@ export async function startQueueWorker(options: QueueWorkerOptions): Promise<Que
     if (ctx.hash !== data.hash) throw new UnrecoverableError(`run ${data.runId} in this worker's database is another study: the worker and \`run --queue\` must use the same --db`);
     ctx.users++;
     try {
-      const computed = await ctx.pool.run({ ranges: data.ranges });
+      const computed = await ctx.pool.run({ study: ctx.study, ranges: data.ranges });
       const w = await ctx.writer.write(computed);
       const skipped = computed.points.length - w.points;
       const again = skipped ? `, ${skipped} already stored` : '';

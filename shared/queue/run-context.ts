@@ -3,7 +3,8 @@
 // while jobs of that run keep coming.
 import { UnrecoverableError } from 'bullmq';
 import { createBatchWriter, getRunSource, type BatchWriter, type MethodVersion, type Store } from '../db/index.js';
-import { prepareStudy, workerDataOf } from '../runner/run-study.js';
+import { prepareStudy, studyForWorkers } from '../runner/run-study.js';
+import type { StudyForWorkers } from '../runner/batch-task.js';
 import { createPool, type SweepPool } from '../runner/pool.js';
 import { parseStudy } from '../study/index.js';
 
@@ -12,6 +13,8 @@ export interface RunContext {
   /** sha256 of the run's study text, as the jobs carry it. */
   hash: string;
   pool: SweepPool;
+  /** What the pool's threads need of the study, sent with each batch. */
+  study: StudyForWorkers;
   /**
    * The store's batch writer, which is idempotent: a job that runs twice (its worker died
    * after the commit but before telling Redis) inserts nothing and counts nothing again.
@@ -43,8 +46,8 @@ export async function loadRunContext(store: Store, runId: number, hash: string, 
   if (was !== is) throw new UnrecoverableError(`run ${runId} used ${was}, this worker's build has ${is}: run the same Filmsweep version everywhere`);
 
   const methodIds = prepared.methods.map((m) => m.id);
-  const pool = createPool(workers, workerDataOf(prepared));
-  return { runId, hash, pool, writer: createBatchWriter(store, runId, methodIds), users: 0 };
+  const pool = createPool(workers);
+  return { runId, hash, pool, study: studyForWorkers(prepared), writer: createBatchWriter(store, runId, methodIds), users: 0 };
 }
 
 function describeMethods(methods: MethodVersion[]): string {

@@ -1,12 +1,14 @@
-// What passes between the runner and its worker threads: the data each worker starts
-// with, one batch's task, and the computed batch it sends back.
+// What passes between the runner and its worker threads: one batch's task (its study and
+// its points) and the computed batch it sends back.
 import type { ResultBatch } from '../db/result-layout.js';
 import type { DesignSpec } from '../design/types.js';
 import type { StoredSummaryRange } from '../design/stored-summaries.js';
 import type { SolvePlan } from '../physics/engine.js';
 import type { SweepSource } from '../study/sweep.js';
 
-export interface WorkerData {
+export interface StudyForWorkers {
+  /** Names the study (its text's sha256): a thread compiles each study once, on its first task. */
+  key: string;
   /** Fixed inputs and sweep: with the point index, all a point needs. */
   sweep: SweepSource;
   plan: SolvePlan;
@@ -17,6 +19,11 @@ export interface WorkerData {
 }
 
 export interface BatchTask {
+  /**
+   * The study the points are of. Every task carries it (a few kB), so the pool's threads
+   * can start before any study is read and serve several studies one after the other.
+   */
+  study: StudyForWorkers;
   /**
    * The batch's point indices as runs of consecutive ids, flat `[from, to, from, to, …]`
    * with `to` excluded: a fresh run's batch is one pair, a resumed run's a few more.

@@ -5,12 +5,12 @@
 // does it too while they are still starting.
 // result-layout.js directly, not the db index: the codec needs no database package.
 import { ResultBatchEncoder } from '../db/result-layout.js';
-import type { PointDesigner } from '../design/point.js';
+import { compilePointDesigner, type PointDesigner } from '../design/point.js';
 import type { Inputs } from '../physics/types.js';
 // sweep.js directly, not the study index: the index also loads the YAML parser, zod and
 // the unit tables, which would add most of a second to every worker's start.
 import { iteratePoints, type SweepSource } from '../study/sweep.js';
-import type { ComputedBatch } from './batch-task.js';
+import type { BatchTask, ComputedBatch, StudyForWorkers } from './batch-task.js';
 
 export function computeBatch(solve: PointDesigner, sweep: SweepSource, methodIds: readonly string[], ranges: readonly number[]): ComputedBatch {
   const t0 = performance.now();
@@ -38,4 +38,22 @@ export function computeBatch(solve: PointDesigner, sweep: SweepSource, methodIds
     }
   }
   return { ...encoder.finish(), summaries: summaries.finish(), computeMs: performance.now() - t0 };
+}
+
+/** The study this thread compiled last (a thread serves one study at a time). */
+let compiled: { study: StudyForWorkers; solve: PointDesigner } | undefined;
+
+/**
+ * A worker thread's task: the batch's points of its study. Sweeps flag a property
+ * temperature outside the fluid's range instead of stopping; the designer solves the
+ * study's target and bands where it has them, and summarises each point.
+ */
+export function computeTask(task: BatchTask): ComputedBatch {
+  if (compiled?.study.key !== task.study.key) {
+    const { plan, methodIds, design } = task.study;
+    compiled = { study: task.study, solve: compilePointDesigner(plan, methodIds, design) };
+  }
+  // The first task's copy of the sweep: its value lists are built once (sweep.ts).
+  const { study, solve } = compiled;
+  return computeBatch(solve, study.sweep, study.methodIds, task.ranges);
 }

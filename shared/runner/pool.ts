@@ -4,7 +4,7 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
-import type { BatchTask, ComputedBatch, WorkerData } from './batch-task.js';
+import type { BatchTask, ComputedBatch } from './batch-task.js';
 
 export function workerFile(): string {
   const beside = fileURLToPath(new URL('./worker.js', import.meta.url));
@@ -25,13 +25,13 @@ export type SweepPool = Piscina<BatchTask, ComputedBatch>;
  */
 const WORKER_YOUNG_GENERATION_MB = 8;
 
-export function createPool(workers: number, data: WorkerData): SweepPool {
+/** `workers` threads, which start loading the compute code at once; each task brings its study. */
+export function createPool(workers: number): SweepPool {
   const pool = new Piscina<BatchTask, ComputedBatch>({
     filename: workerFile(),
     minThreads: workers,
     maxThreads: workers,
     idleTimeout: 60_000,
-    workerData: data,
     resourceLimits: { maxYoungGenerationSizeMb: WORKER_YOUNG_GENERATION_MB },
   });
   // A batch cancelled by a second Ctrl-C may still finish in its worker; piscina then
