@@ -49,9 +49,11 @@ export async function getRecommendationCounts(store: Store, runId: number): Prom
   const lastStored = (await hasRunTable(store, runId))
     ? sql<boolean>`exists (select 1 from ${sql.raw(runTableName(runId))} t where t.seq = (s.end_idx - 1) * ${sql.lit(Math.max(1, methodIds.length))})`
     : sql<boolean>`exists (select 1 from points p where p.run_id = s.run_id and p.idx = s.end_idx - 1)`;
+  // Each range's counts, not its facts (a run's facts are tens of MB): those are read only
+  // for the rare range that overlaps an earlier one.
   const rows = await store.db
     .selectFrom('point_summaries as s')
-    .select(['s.first_idx', 's.end_idx', 's.counts', 's.facts'])
+    .select(['s.first_idx', 's.end_idx', 's.counts'])
     .where('s.run_id', '=', runId)
     .where(lastStored)
     .orderBy('s.first_idx')
@@ -67,8 +69,14 @@ export async function getRecommendationCounts(store: Store, runId: number): Prom
     if (r.first_idx >= covered) {
       for (const [key, n] of Object.entries(JSON.parse(r.counts) as Record<string, number>)) add(key, n);
     } else if (r.end_idx > covered) {
+      const { facts } = await store.db
+        .selectFrom('point_summaries')
+        .select('facts')
+        .where('run_id', '=', runId)
+        .where('first_idx', '=', r.first_idx)
+        .executeTakeFirstOrThrow();
       const recommended = new Map<number, number | null>();
-      decodeRecommended(r.facts, r.first_idx, recommended);
+      decodeRecommended(facts, r.first_idx, recommended);
       for (const [idx, m] of recommended) if (idx >= covered) add(m === null ? 'none' : String(m), 1);
     }
     covered = Math.max(covered, r.end_idx);
