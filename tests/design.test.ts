@@ -1,7 +1,7 @@
 // Design answers, pure parts (shared/design): targets, bands, the summary across methods.
 import { describe, expect, it } from 'vitest';
 import { compilePointDesigner, evaluateWithFactor, factorRule, isRangeFlag, solveTargetNear, solveTargetValue, type DesignSpec } from '../shared/design/index.js';
-import { decodeSummary, encodeSummaries } from '../shared/design/stored-summaries.js';
+import { decodeRecommended, decodeSummary, encodeSummaries } from '../shared/design/stored-summaries.js';
 import { getMethod } from '../shared/physics/catalogue.js';
 import { compileSolver, solvePoint, type SolvePlan } from '../shared/physics/engine.js';
 import type { Inputs } from '../shared/physics/types.js';
@@ -269,6 +269,35 @@ describe('summary across methods', () => {
     });
     // Both recommendations and "none" occur, so the counts carry both kinds of key.
     expect(columnar.some((r) => r.counts.includes('"none"'))).toBe(true);
+    // The recommended method, the applicable ones and what the spread is of go as runs of
+    // equal values (they change at a few points of the sweep); the spread as a list.
+    const stored = JSON.parse(columnar[1].facts);
+    expect(Object.keys(stored)).toEqual(['recommended', 'applicable', 'spread', 'spread_of']);
+    for (const key of ['recommended', 'applicable', 'spread_of']) {
+      expect(stored[key].runs.reduce((n: number, [, count]: [unknown, number]) => n + count, 0)).toBe(25);
+      expect(stored[key].runs.length).toBeLessThan(25);
+    }
+    expect(stored.spread).toHaveLength(25);
+  });
+
+  it('reads summaries stored as one list per column, as runs before the runs form have them', () => {
+    const facts = JSON.stringify({ recommended: [2, null, 0], applicable: [[0, 2], [], [0]], spread: [0.125, null, null], spread_of: ['Nu', null, null] });
+    expect(decodeSummary(facts, 10, 10, pipeIds)).toEqual({ recommended: pipeIds[2], applicable: [pipeIds[0], pipeIds[2]], spread: 0.125, spread_of: 'Nu' });
+    expect(decodeSummary(facts, 10, 11, pipeIds)).toEqual({ recommended: null, applicable: [], spread: null, spread_of: null });
+    expect(decodeSummary(facts, 10, 12, pipeIds)).toEqual({ recommended: pipeIds[0], applicable: [pipeIds[0]], spread: null, spread_of: null });
+    const byIndex = new Map<number, number | null>();
+    decodeRecommended(facts, 10, byIndex);
+    expect([...byIndex]).toEqual([
+      [10, 2],
+      [11, null],
+      [12, 0],
+    ]);
+    // The runs form gives the same.
+    const runs = JSON.stringify({ recommended: { runs: [[2, 1], [null, 1], [0, 1]] }, applicable: { runs: [[[0, 2], 1], [[], 1], [[0], 1]] }, spread: [0.125, null, null], spread_of: { runs: [['Nu', 1], [null, 2]] } });
+    for (const idx of [10, 11, 12]) expect(decodeSummary(runs, 10, idx, pipeIds)).toEqual(decodeSummary(facts, 10, idx, pipeIds));
+    const fromRuns = new Map<number, number | null>();
+    decodeRecommended(runs, 10, fromRuns);
+    expect(fromRuns).toEqual(byIndex);
   });
 
   it('a single-method forward solve and the designer give the same rows', () => {
