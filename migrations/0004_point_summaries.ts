@@ -17,7 +17,8 @@ export async function up(db: Kysely<any>): Promise<void> {
     .addColumn('first_idx', 'integer', (c) => c.notNull())
     // One past the range's last point.
     .addColumn('end_idx', 'integer', (c) => c.notNull())
-    // JSON {recommended: [method index | null], applicable: [[method index]], spread: [number | null], spread_of: [name | null]}.
+    // JSON {recommended: [method index | null], applicable: [[method index]], spread: [number | null], spread_of: [name | null]};
+    // newer rows give recommended, applicable and spread_of as {runs: [[value, points], …]} (shared/design/stored-summaries.ts).
     .addColumn('facts', 'text', (c) => c.notNull())
     // JSON {"<method index>": points, "none": points}: what `show` adds up.
     .addColumn('counts', 'text', (c) => c.notNull())
