@@ -141,7 +141,7 @@ export class ResultBatchEncoder {
    * a point or result with the same keys as the last one (nearly all of a sweep) takes
    * their columns and shape without a lookup.
    */
-  private readonly inputKeys = new KeyList();
+  private readonly inputKeys = new KeyList(); // its columns unused: inputColumns keeps them, as one array per key list
   private readonly outputKeys: KeyList[];
 
   constructor(

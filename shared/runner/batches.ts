@@ -23,15 +23,16 @@ export function maxBatchPoints(methods: number): number {
 
 export class BatchSizer {
   private msPerPoint: number | undefined;
+  /** Points per batch at most. */
+  private readonly max: number;
 
   /**
    * `fixed`: always that size. Otherwise start at MIN_BATCH and adapt, in multiples of
    * `align`: the length of a grid's innermost sweep entry, so that the points sharing
    * the outer values (e.g. one Falkner–Skan m across a Pr sweep) land in one worker and
-   * its cached momentum solution is not solved again by another.
+   * its cached momentum solution is not solved again by another. `methods`: the study's,
+   * for the cap on a batch's results.
    */
-  private readonly max: number;
-
   constructor(
     private readonly points: number,
     private readonly workers: number,
