@@ -71,7 +71,7 @@ export async function resumeOnQueue(store: Store, runId: number, target: QueueTa
 /**
  * Points per job when `--batch-size` is not given: enough jobs for the tail of the sweep
  * to be shared evenly among `slots` worker threads (at least four each), within the
- * runner's 16 … 2000 points and aligned to the grid's innermost entry, so that points
+ * 16 … 2000 points (MIN_BATCH … MAX_JOB_POINTS) and aligned to the grid's innermost entry, so that points
  * sharing the outer values (and their similarity solve) stay in one job. The number of
  * threads the workers will bring is unknown here; `slots` only keeps the jobs many.
  * Unlike a local run it does not adapt to timings: the same study always gives the same

@@ -55,7 +55,7 @@ export interface RunProgress {
 export interface RunOptions {
   /** Worker threads; default os.availableParallelism(). */
   workers?: number;
-  /** Points per batch; default adapts so a batch takes about 0.2 s of compute (16 … 2000 points). */
+  /** Points per batch; default adapts so a batch takes about 0.2 s of compute (16 points … 32,000 results). */
   batchSize?: number;
   /** Batches in flight at once (p-limit); default 2 per worker. */
   inFlight?: number;
